@@ -1,0 +1,12 @@
+using System.CommandLine;
+
+namespace PlanDesk.Cli;
+
+/// <summary>The table of contents of the <c>plandesk</c> command: one line per subcommand, each in its own file.</summary>
+internal static class Commands
+{
+    public static IEnumerable<Command> All() =>
+    [
+        ValidateCommand.Create(),
+    ];
+}
