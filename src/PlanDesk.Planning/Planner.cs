@@ -1,0 +1,26 @@
+using PlanDesk.Core.Model;
+using PlanDesk.Core.Plans;
+
+namespace PlanDesk.Planning;
+
+/// <summary>Settings of one solve.</summary>
+public sealed record SolveOptions
+{
+    /// <summary>MIP backend: "HIGHS" or "SCIP" (see docs/formulation.md for the measured choice).</summary>
+    public string Solver { get; init; } = "HIGHS";
+    public double TimeLimitSeconds { get; init; } = 60;
+    /// <summary>Relative gap at which the search stops, percent.</summary>
+    public double GapPercent { get; init; } = 0.5;
+    public int Threads { get; init; } = 2;
+}
+
+/// <summary>What a long solve reports while it runs; fields the backend does not expose are null.</summary>
+public sealed record SolveProgress(string Phase, double ElapsedSeconds, double TimeLimitSeconds, double? Incumbent, double? BestBound, double? GapPercent);
+
+/// <summary>Builds the MILP for a planning case, solves it and extracts the plan.</summary>
+public static class Planner
+{
+    /// <summary>Always returns a plan record; when the solver found none, <c>Solve.Status</c> is noPlan and its arrays are empty.</summary>
+    public static Plan Solve(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress = null, CancellationToken cancellation = default) =>
+        throw new NotImplementedException("the planner is being written (issue 3)");
+}
