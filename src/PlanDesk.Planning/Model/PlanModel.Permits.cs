@@ -4,21 +4,6 @@ using PlanDesk.Core.Model;
 
 namespace PlanDesk.Planning.Model;
 
-/// <summary>A nutrient a permit caps: total N or total P.</summary>
-internal sealed record Nutrient(string Key, string Label, Func<TreatmentLevel, double> EffluentMgPerL, double RawMgPerL,
-    double? DailyCapKg, double? MonthlyCapKg, double MonthToDateKg)
-{
-    public static IReadOnlyList<Nutrient> Of(Plant plant) =>
-    [
-        new("tn", "total N", l => l.EffluentTotalNitrogenMgPerL, plant.RawTotalNitrogenMgPerL,
-            plant.Permit.DailyTotalNitrogenKg, plant.Permit.MonthlyTotalNitrogenKg, plant.Permit.MonthToDateTotalNitrogenKg),
-        new("tp", "total P", l => l.EffluentTotalPhosphorusMgPerL, plant.RawTotalPhosphorusMgPerL,
-            plant.Permit.DailyTotalPhosphorusKg, plant.Permit.MonthlyTotalPhosphorusKg, plant.Permit.MonthToDateTotalPhosphorusKg),
-    ];
-
-    public bool Capped => DailyCapKg.HasValue || MonthlyCapKg.HasValue;
-}
-
 // Discharge permits: outfall flow and the daily and monthly nutrient loads.
 internal sealed partial class PlanModel
 {
@@ -27,12 +12,6 @@ internal sealed partial class PlanModel
     public Dictionary<(PlantId Plant, int Day, LevelId Level), Variable> NutrientVolumeAtLevel { get; } = [];
     public Dictionary<(PlantId Plant, string Nutrient, int Day), Variable> DailyLoadExcess { get; } = [];
     public Dictionary<(PlantId Plant, string Nutrient, int Month), Variable> MonthlyLoadExcess { get; } = [];
-
-    /// <summary>Stages whose reject carries nutrients of this plant's secondary effluent: fed from the secondary or
-    /// from a tank at the plant (whose water the plant's own stages made), with a non-zero rejection fraction.</summary>
-    internal static IEnumerable<Stage> NutrientRejectingStages(Network network, Plant plant) =>
-        plant.Stages.Where(s => s.NutrientRejectionFraction > 0 &&
-                                (s.FeedTank is null || network.Tank(s.FeedTank.Value).Plant == plant.Id));
 
     /// <summary>outfall = secondary effluent to outfall + Σ (1 − recovery)·feed + bypass ≤ max outfall flow·Δh + excess.</summary>
     private void AddOutfallFlowLimits()
@@ -69,7 +48,7 @@ internal sealed partial class PlanModel
     {
         foreach (var plant in Network.Plants)
         {
-            var nutrients = Nutrient.Of(plant).Where(n => n.Capped).ToList();
+            var nutrients = PermitNutrient.Of(plant).Where(n => n.Capped).ToList();
             if (nutrients.Count == 0)
             {
                 continue;
@@ -84,7 +63,7 @@ internal sealed partial class PlanModel
 
     private void AddNutrientVolumeSplit(Plant plant)
     {
-        var rejecting = NutrientRejectingStages(Network, plant).ToList();
+        var rejecting = PermitNutrient.RejectingStages(Network, plant).ToList();
         var influent = Case.InfluentM3[plant.Id];
         foreach (var day in Horizon.Days)
         {
@@ -113,7 +92,7 @@ internal sealed partial class PlanModel
         }
     }
 
-    private void AddNutrientCaps(Plant plant, Nutrient nutrient)
+    private void AddNutrientCaps(Plant plant, PermitNutrient nutrient)
     {
         if (nutrient.DailyCapKg is { } dailyCap)
         {
@@ -145,7 +124,7 @@ internal sealed partial class PlanModel
     }
 
     // kg = mg/L × m3 / 1000.
-    private void AddDayLoad(Constraint row, Plant plant, Nutrient nutrient, PlanDay day)
+    private void AddDayLoad(Constraint row, Plant plant, PermitNutrient nutrient, PlanDay day)
     {
         foreach (var level in AllowedLevels[plant.Id])
         {
