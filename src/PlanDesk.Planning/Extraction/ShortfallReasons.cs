@@ -22,6 +22,11 @@ internal static class ShortfallReasons
         {
             reasons.Add($"no source meets its blend limit of {Amounts.Format(blend.Max, 2)} for {blend.Parameter}");
         }
+        var favoured = HigherPriorityServed(planningCase, plan, customer, day);
+        if (favoured.Count > 0)
+        {
+            reasons.Add($"the water that could reach it went to higher-priority customers ({string.Join(", ", favoured)})");
+        }
         reasons.AddRange(StageOutages(planningCase, Upstream(network, customer.Id), day));
         if (customer.Demand is DailyDemand && periods.Count > 0)
         {
@@ -36,11 +41,6 @@ internal static class ShortfallReasons
         if (full.Count == pipelines.Count)
         {
             reasons.Add(string.Join(", ", full.Select(l => $"pipeline {l.Name} is at its capacity of {Amounts.Format(l.CapacityM3PerHour)} m3/h")));
-        }
-        var favoured = HigherPriorityServed(planningCase, plan, customer, day);
-        if (favoured.Count > 0)
-        {
-            reasons.Add($"the water that could reach it went to higher-priority customers ({string.Join(", ", favoured)})");
         }
         if (reasons.Count == 0)
         {
