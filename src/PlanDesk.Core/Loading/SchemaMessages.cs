@@ -13,16 +13,8 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
     {
         // A misspelt field shows up twice: as unknown, and as the required field it was meant to be. Say it once.
         var misspelt = new HashSet<string>();
-        var problems = new List<LoadProblem>();
-        foreach (var failure in failures.Where(IsUnknownField))
-        {
-            problems.Add(UnknownField(failure, misspelt));
-        }
-        foreach (var failure in failures.Where(f => !IsUnknownField(f)))
-        {
-            problems.AddRange(Other(failure, misspelt));
-        }
-        return problems;
+        var unknown = failures.Where(IsUnknownField).ToDictionary(f => f, f => UnknownField(f, misspelt));
+        return failures.SelectMany(f => unknown.TryGetValue(f, out var problem) ? [problem] : Other(f, misspelt)).ToList();
     }
 
     private static bool IsUnknownField(SchemaFailure failure) =>
@@ -42,7 +34,7 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
             misspelt.Add(parentPointer + "/" + near);
         }
         var fix = near is not null
-            ? $"did you mean '{near}'? the fields here are: {Suggest.List(allowed, 30)}"
+            ? $"did you mean '{near}'?"
             : $"remove it, or use one of the fields here: {Suggest.List(allowed, 30)}";
         return new LoadProblem(file, Path(failure.InstancePointer), $"unknown field '{name}'", fix);
     }
@@ -52,7 +44,7 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
         var chain = Resolve(failure.EvaluationPath);
         var schema = chain.Count > 0 ? chain[^1] : default;
         var value = JsonPaths.At(instanceRoot, failure.InstancePointer);
-        var shown = value is { } v ? JsonPaths.Show(v) : "the value";
+        var shown = value is { ValueKind: not (JsonValueKind.Object or JsonValueKind.Array) } v ? JsonPaths.Show(v) : "the value";
         var path = Path(failure.InstancePointer);
         switch (failure.Keyword)
         {
@@ -125,7 +117,7 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
     private static string AsPhrase(string description)
     {
         var text = description.TrimEnd('.');
-        return text.Length > 1 && char.IsUpper(text[0]) && char.IsLower(text[1]) ? char.ToLowerInvariant(text[0]) + text[1..] : text;
+        return text.Length > 1 && char.IsUpper(text[0]) && (char.IsLower(text[1]) || text[1] == ' ') ? char.ToLowerInvariant(text[0]) + text[1..] : text;
     }
 
     private static string KindOf(JsonElement? value) => value?.ValueKind switch

@@ -71,7 +71,7 @@ internal static class StorageReader
             context.Add(pipeline.PathOf("to"), $"{kind} '{to}' needs class {needed} but the pipeline carries class {carried} from tank '{pipeline.Text("from")}'",
                 $"draw from a tank holding class {needed} or better, or connect a {kind} that accepts class {carried}");
         }
-        if (catalog.BlendParameter(to) is { } parameter && !catalog.ClassDefines(carried, parameter))
+        if (catalog.BlendParameter(to) is { } parameter && catalog.Rank(carried) is not null && !catalog.ClassDefines(carried, parameter))
         {
             context.Add(catalog.ClassPath(carried) is { } classPath ? JsonPaths.Child(classPath, "quality") : pipeline.Path,
                 $"class {carried} gives no {parameter}, but customer '{to}' limits it and pipeline '{pipeline.Text("id")}' brings class-{carried} water",
