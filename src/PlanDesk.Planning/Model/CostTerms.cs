@@ -77,7 +77,7 @@ internal sealed class CostTerms
     public CostBreakdown ToBreakdown() => new()
     {
         EnergyImport = Value(CostComponent.EnergyImport),
-        EnergyExportCredit = -Value(CostComponent.EnergyExportCredit),
+        EnergyExportCredit = 0.0 - Value(CostComponent.EnergyExportCredit), // 0.0 − x: never "-0"
         DemandCharge = Value(CostComponent.DemandCharge),
         UnitStarts = Value(CostComponent.UnitStarts),
         Chemicals = Value(CostComponent.Chemicals),
