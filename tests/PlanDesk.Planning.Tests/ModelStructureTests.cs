@@ -50,7 +50,7 @@ public class ModelStructureTests
         Assert.Equal(1, families["peak"]);
         Assert.Equal(1, families["tank-end-deficit"]);
         Assert.False(families.ContainsKey("tp-daily-excess"));
-        Assert.Equal(50, model.IntegerVariables.Count);
+        Assert.Equal(50, model.IntegerVariables.Count());
         Assert.Equal(2 + 24 * 2 + 48 + 24 * 3 + 24 + 24 * 2 + 24 * 3 + 1 + 24 + 2 + 1 + 24 * 6 + 1, solver.NumVariables());
     }
 

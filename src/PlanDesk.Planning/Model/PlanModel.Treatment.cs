@@ -47,7 +47,7 @@ internal sealed partial class PlanModel
                 var oneLevel = EqualRow(1, Name("one-level", plant.Id, DayLabel(day.Index)));
                 foreach (var level in allowed)
                 {
-                    var on = IntVar(0, 1, Name("level", plant.Id, DayLabel(day.Index), level.Id));
+                    var on = IntVar(0, 1, Name("level", plant.Id, DayLabel(day.Index), level.Id), day.Index);
                     LevelOn[(plant.Id, day.Index, level.Id)] = on;
                     oneLevel.Add(on, 1);
                 }

@@ -13,6 +13,12 @@ internal enum IntegerMode
     Fixed,
 }
 
+/// <summary>How the integer decisions of each local day enter a model; fixed ones take their value by variable name.</summary>
+internal sealed record IntegerRule(Func<int, IntegerMode> ModeOfDay, IReadOnlyDictionary<string, double>? FixedValues = null)
+{
+    public static IntegerRule Everywhere(IntegerMode mode, IReadOnlyDictionary<string, double>? fixedValues = null) => new(_ => mode, fixedValues);
+}
+
 /// <summary>
 /// The whole plan as one MILP on an OR-Tools solver. Each constraint family lives in its own file and method
 /// (treatment, stages, storage, customers, permits, energy); variables are keyed by network ids and period
@@ -21,15 +27,13 @@ internal enum IntegerMode
 /// </summary>
 internal sealed partial class PlanModel
 {
-    private readonly IntegerMode integerMode;
-    private readonly IReadOnlyDictionary<string, double>? fixedIntegers;
+    private readonly IntegerRule integerRule;
 
-    private PlanModel(Solver solver, PlanningCase planningCase, IntegerMode integerMode, IReadOnlyDictionary<string, double>? fixedIntegers)
+    private PlanModel(Solver solver, PlanningCase planningCase, IntegerRule integerRule)
     {
         Solver = solver;
         Case = planningCase;
-        this.integerMode = integerMode;
-        this.fixedIntegers = fixedIntegers;
+        this.integerRule = integerRule;
     }
 
     public Solver Solver { get; }
@@ -37,8 +41,9 @@ internal sealed partial class PlanModel
     public CostTerms Costs { get; } = new();
     /// <summary>Things the model had to decide about the data (e.g. no level meets a limit), in plain words.</summary>
     public List<string> Notes { get; } = [];
-    /// <summary>Integer variables as built (also counted when relaxed or fixed, for the model size).</summary>
-    public List<Variable> IntegerVariables { get; } = [];
+    /// <summary>Integer variables as built, with their local day (also listed when relaxed or fixed, for the model size).</summary>
+    public List<(Variable Variable, int Day)> IntegerDecisions { get; } = [];
+    public IEnumerable<Variable> IntegerVariables => IntegerDecisions.Select(d => d.Variable);
 
     private Network Network => Case.Network;
     private Horizon Horizon => Case.Horizon;
@@ -48,9 +53,13 @@ internal sealed partial class PlanModel
 
     /// <summary>Builds every family into <paramref name="solver"/>. With <see cref="IntegerMode.Fixed"/>,
     /// <paramref name="fixedIntegers"/> gives each integer variable's value by name.</summary>
-    public static PlanModel Build(Solver solver, PlanningCase planningCase, IntegerMode integerMode, IReadOnlyDictionary<string, double>? fixedIntegers = null)
+    public static PlanModel Build(Solver solver, PlanningCase planningCase, IntegerMode integerMode, IReadOnlyDictionary<string, double>? fixedIntegers = null) =>
+        Build(solver, planningCase, IntegerRule.Everywhere(integerMode, fixedIntegers));
+
+    /// <summary>Builds every family, treating each day's integer decisions as <paramref name="integerRule"/> says.</summary>
+    public static PlanModel Build(Solver solver, PlanningCase planningCase, IntegerRule integerRule)
     {
-        var model = new PlanModel(solver, planningCase, integerMode, fixedIntegers);
+        var model = new PlanModel(solver, planningCase, integerRule);
         model.AddTreatmentLevels();
         model.AddSecondaryBalance();
         model.AddStageUnits();
@@ -67,9 +76,10 @@ internal sealed partial class PlanModel
         return model;
     }
 
-    /// <summary>The value of every integer variable by name, rounded: what <see cref="IntegerMode.Fixed"/> takes.</summary>
-    public Dictionary<string, double> IntegerValues() =>
-        IntegerVariables.ToDictionary(v => v.Name(), v => Math.Round(v.SolutionValue()));
+    /// <summary>The value of every integer variable by name (of one day when given), rounded: what <see cref="IntegerMode.Fixed"/> takes.</summary>
+    public Dictionary<string, double> IntegerValues(int? day = null) =>
+        IntegerDecisions.Where(d => day is null || d.Day == day)
+            .ToDictionary(d => d.Variable.Name(), d => Math.Round(d.Variable.SolutionValue()));
 
     internal static string Name(string family, params object[] keys) =>
         $"{family}[{string.Join(",", keys.Select(k => Convert.ToString(k, CultureInfo.InvariantCulture)))}]";
@@ -80,10 +90,11 @@ internal sealed partial class PlanModel
 
     private Variable NumVar(double lowerBound, double upperBound, string name) => Solver.MakeNumVar(lowerBound, upperBound, name);
 
-    private Variable IntVar(double lowerBound, double upperBound, string name)
+    private Variable IntVar(double lowerBound, double upperBound, string name, int day)
     {
         Variable variable;
-        switch (integerMode)
+        var fixedIntegers = integerRule.FixedValues;
+        switch (integerRule.ModeOfDay(day))
         {
             case IntegerMode.Integer:
                 variable = Solver.MakeIntVar(lowerBound, upperBound, name);
@@ -97,7 +108,7 @@ internal sealed partial class PlanModel
                 variable = Solver.MakeNumVar(value, value, name);
                 break;
         }
-        IntegerVariables.Add(variable);
+        IntegerDecisions.Add((variable, day));
         return variable;
     }
 

@@ -13,22 +13,24 @@ internal static class Bounds
     /// the better of the LP relaxation's optimum and, when HiGHS says optimal, what its stopping rule proves:
     /// it stops only once (objective − bound) ≤ max(gap·|objective|, absolute gap).
     /// </summary>
-    public static double Best(string backend, Solver.ResultStatus status, double objective, double reportedBound,
-        double? relaxationBound, double gapPercent, List<string> notes)
+    /// <param name="milpObjective">The whole MILP's objective, null when it found no plan.</param>
+    /// <param name="objective">The objective of the plan kept (the MILP's or the day-by-day first plan's).</param>
+    public static double Best(string backend, Solver.ResultStatus status, double? milpObjective, double reportedBound,
+        double? relaxationBound, double gapPercent, double objective, List<string> notes)
     {
         if (backend == SolverBackend.Scip)
         {
-            return double.IsFinite(reportedBound) ? Math.Min(objective, reportedBound) : double.NaN;
+            return milpObjective.HasValue && double.IsFinite(reportedBound) ? Math.Min(objective, reportedBound) : double.NaN;
         }
         var candidates = new List<(double Bound, string Source)>();
         if (relaxationBound is { } relaxed)
         {
             candidates.Add((relaxed, "the LP relaxation"));
         }
-        if (status == Solver.ResultStatus.OPTIMAL)
+        if (status == Solver.ResultStatus.OPTIMAL && milpObjective is { } stopped)
         {
             var gap = Math.Max(gapPercent, 0) / 100.0;
-            candidates.Add((objective - Math.Max(gap * Math.Abs(objective), HighsAbsoluteGap), $"HiGHS's stopping rule at a {gapPercent:0.###} % gap"));
+            candidates.Add((stopped - Math.Max(gap * Math.Abs(stopped), HighsAbsoluteGap), $"HiGHS's stopping rule at a {gapPercent:0.###} % gap"));
         }
         if (candidates.Count == 0)
         {
