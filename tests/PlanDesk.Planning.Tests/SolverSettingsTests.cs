@@ -77,7 +77,7 @@ public class SolverSettingsTests
 
         Planner.Solve(ShiftCase(), new SolveOptions { TimeLimitSeconds = 20 }, progress);
 
-        Assert.Equal(["building the model", "bounding (LP relaxation)", "solving", "explaining (marginal water costs)"],
+        Assert.Equal(["building the model", "relaxation and first plan", "solving", "explaining (marginal water costs)"],
             phases.Select(p => p.Phase).Distinct());
         Assert.All(phases, p => Assert.Equal(20, p.TimeLimitSeconds));
     }

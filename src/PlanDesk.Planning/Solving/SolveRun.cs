@@ -9,15 +9,15 @@ using PlanDesk.Planning.Model;
 namespace PlanDesk.Planning.Solving;
 
 /// <summary>
-/// One solve, in stages: build the MILP; for HiGHS, bound it with its LP relaxation; for horizons of several
-/// days, build a day-by-day first plan; solve the whole MILP in the time left (SCIP starts from the first plan);
-/// keep the better plan; explain it with a fixed-decision LP.
+/// One solve, in stages: build the MILP; solve its LP relaxation (HiGHS's bound) and round it into a first plan;
+/// solve the whole MILP in the time left (SCIP starts from the first plan); keep the better plan; explain it with
+/// a fixed-decision LP.
 /// </summary>
 internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
 {
-    // Shares of the time left that the LP relaxation and the day-by-day first plan may use at most.
+    // Shares of the time left that the LP relaxation and the first plan's LP may use at most.
     private const double RelaxationTimeShare = 0.2;
-    private const double FirstPlanTimeShare = 0.35;
+    private const double FirstPlanTimeShare = 0.15;
     private static readonly TimeSpan ProgressInterval = TimeSpan.FromMilliseconds(500);
 
     private readonly Stopwatch clock = Stopwatch.StartNew();
@@ -42,20 +42,12 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         {
             var model = PlanModel.Build(solver, planningCase, IntegerMode.Integer);
             notes.AddRange(model.Notes);
-            if (backend == SolverBackend.Highs)
+            Report("relaxation and first plan");
+            firstPlan = RelaxAndRound(backend);
+            incumbent = firstPlan?.Objective;
+            if (backend == SolverBackend.Scip && firstPlan is not null)
             {
-                Report("bounding (LP relaxation)");
-                relaxationBound = RelaxationBound();
-            }
-            if (planningCase.Horizon.DayCount > 1)
-            {
-                firstPlan = DayByDayPlan.Build(planningCase, backend, options, Remaining() * FirstPlanTimeShare,
-                    day => Report($"first plan: day {day + 1} of {planningCase.Horizon.DayCount}"), notes, cancellation);
-                incumbent = firstPlan?.Objective;
-                if (backend == SolverBackend.Scip && firstPlan is not null)
-                {
-                    Hint(solver, firstPlan.Solver);
-                }
+                Hint(solver, firstPlan.Solver);
             }
             cancellation.ThrowIfCancellationRequested();
 
@@ -99,8 +91,8 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         if (chosen == firstPlan)
         {
             notes.Add(whole is null
-                ? $"the whole MILP found no plan in time ({SolverBackend.Describe(status)}): this is the day-by-day first plan"
-                : "the whole MILP found no better plan in time than the day-by-day first plan");
+                ? $"the whole MILP found no plan in time ({SolverBackend.Describe(status)}): this is the first plan rounded from the LP relaxation"
+                : "the whole MILP found no better plan in time than the first plan rounded from the LP relaxation");
         }
 
         var bound = Bounds.Best(backend, status, whole?.Objective, solver.Objective().BestBound(), relaxationBound, options.GapPercent, chosen.Objective, notes);
@@ -120,17 +112,22 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         return plan with { Solve = plan.Solve with { SolveSeconds = clock.Elapsed.TotalSeconds, Notes = notes } };
     }
 
-    private double? RelaxationBound()
+    // The relaxation's optimum is a true lower bound (kept for HiGHS, whose own bound is not); its rounding is the first plan.
+    private SolvedModel? RelaxAndRound(string backend)
     {
         using var lp = SolverBackend.CreateRelaxation(options, Remaining() * RelaxationTimeShare, notes);
-        PlanModel.Build(lp, planningCase, IntegerMode.Relaxed);
+        var relaxed = PlanModel.Build(lp, planningCase, IntegerMode.Relaxed);
         var status = lp.Solve();
-        if (status == Solver.ResultStatus.OPTIMAL)
+        if (status != Solver.ResultStatus.OPTIMAL)
         {
-            return lp.Objective().Value();
+            notes.Add($"the LP relaxation was not solved ({SolverBackend.Describe(status)}): no bound from it and no first plan");
+            return null;
         }
-        notes.Add($"the LP relaxation gave no bound ({SolverBackend.Describe(status)})");
-        return null;
+        if (backend == SolverBackend.Highs)
+        {
+            relaxationBound = lp.Objective().Value();
+        }
+        return FirstPlan.Build(planningCase, relaxed, options, Remaining() * FirstPlanTimeShare, notes);
     }
 
     // SCIP takes a starting solution; HiGHS must never get one (SetHint crashes it).
