@@ -71,13 +71,11 @@ internal static class FirstPlan
         {
             var available = planningCase.AvailableUnits[stage.Id];
             var units = Enumerable.Range(0, planningCase.PeriodCount)
-                .Select(t => Math.Min(available[t], UnitsFor(relaxed.Feed[(stage.Id, t)].SolutionValue(), stage.UnitMaxFlowM3PerHour * hours)))
+                .Select(t => UnitsFor(relaxed.Feed[(stage.Id, t)].SolutionValue(), stage.UnitMinFlowM3PerHour * hours,
+                    stage.UnitMaxFlowM3PerHour * hours, available[t]))
                 .ToArray();
             var minRunPeriods = (int)Math.Ceiling(stage.MinRunHours / hours - 1e-9);
-            if (!StretchToMinimumRun(units, stage.InitialUnitsRunning, minRunPeriods, available))
-            {
-                Array.Clear(units);
-            }
+            KeepMinimumRun(units, stage.InitialUnitsRunning, minRunPeriods, available);
             for (var t = 0; t < units.Length; t++)
             {
                 values[relaxed.Units[(stage.Id, t)].Name()] = units[t];
@@ -89,44 +87,59 @@ internal static class FirstPlan
             for (var t = 0; t < planningCase.PeriodCount; t++)
             {
                 var flow = relaxed.Flow[(pipeline.Id, t)].SolutionValue();
-                var fewest = UnitsFor(flow, pumps.MaxFlowM3PerHour * hours);
-                // More pumps than the flow allows at their minimum would force water the customer may not take.
-                var most = pumps.MinFlowM3PerHour > 0 ? (int)Math.Floor(flow / (pumps.MinFlowM3PerHour * hours) + Tolerance) : pumps.Count;
-                values[relaxed.PumpsOn[(pipeline.Id, t)].Name()] = Math.Min(pumps.Count, Math.Min(fewest, most));
+                values[relaxed.PumpsOn[(pipeline.Id, t)].Name()] =
+                    UnitsFor(flow, pumps.MinFlowM3PerHour * hours, pumps.MaxFlowM3PerHour * hours, pumps.Count);
             }
         }
         return values;
     }
 
-    // Units (or pumps) needed to carry a flow at most maxPerUnit each.
-    private static int UnitsFor(double flow, double maxPerUnit) =>
-        flow <= Tolerance || maxPerUnit <= 0 ? 0 : (int)Math.Ceiling(flow / maxPerUnit - Tolerance);
+    /// <summary>Identical units (or pumps) for a relaxed flow: enough to carry it when their minimum allows;
+    /// otherwise the count that changes the flow least (fewer units carrying less, or more forced to carry more).</summary>
+    internal static int UnitsFor(double flow, double minPerUnit, double maxPerUnit, int available)
+    {
+        if (flow <= Tolerance || maxPerUnit <= 0 || available <= 0)
+        {
+            return 0;
+        }
+        var enough = Math.Min(available, (int)Math.Ceiling(flow / maxPerUnit - Tolerance));
+        if (minPerUnit * enough <= flow + Tolerance)
+        {
+            return enough;
+        }
+        var fewer = Math.Min(available, (int)Math.Floor(flow / minPerUnit + Tolerance));
+        var flowLost = flow - maxPerUnit * fewer;
+        var flowAdded = minPerUnit * enough - flow;
+        return flowLost <= flowAdded ? fewer : enough;
+    }
 
-    /// <summary>Raises units so every unit started in the last L periods still runs (n[t] ≥ Σ starts over the last L);
-    /// false when an outage makes that impossible.</summary>
-    internal static bool StretchToMinimumRun(int[] units, int initialUnits, int minRunPeriods, int[] available)
+    /// <summary>Makes a unit schedule keep the minimum run: every unit started in the last L periods still runs
+    /// (n[t] ≥ Σ starts over the last L). Runs are stretched; a start that would run into an outage is cancelled.</summary>
+    internal static void KeepMinimumRun(int[] units, int initialUnits, int minRunPeriods, int[] available)
     {
         if (minRunPeriods < 2)
         {
-            return true;
+            return;
         }
         var starts = new int[units.Length];
         for (var t = 0; t < units.Length; t++)
         {
-            var before = t == 0 ? initialUnits : units[t - 1];
-            var stillRunning = 0;
-            for (var back = Math.Max(0, t - minRunPeriods + 1); back < t; back++)
+            var first = Math.Max(0, t - minRunPeriods + 1);
+            var stillRunning = Enumerable.Range(first, t - first).Sum(back => starts[back]);
+            // Cancel the latest starts the outage leaves no room for: those units never start.
+            for (var back = t - 1; back >= first && stillRunning > available[t]; back--)
             {
-                stillRunning += starts[back];
-            }
-            if (stillRunning > available[t])
-            {
-                return false;
+                var cancel = Math.Min(stillRunning - available[t], starts[back]);
+                for (var later = back; later < t; later++)
+                {
+                    units[later] -= cancel;
+                }
+                starts[back] -= cancel;
+                stillRunning -= cancel;
             }
             // stillRunning ≤ units[t − 1], so raising to it starts nothing new.
             units[t] = Math.Max(units[t], stillRunning);
-            starts[t] = Math.Max(0, units[t] - before);
+            starts[t] = Math.Max(0, units[t] - (t == 0 ? initialUnits : units[t - 1]));
         }
-        return true;
     }
 }

@@ -15,9 +15,14 @@ namespace PlanDesk.Planning.Solving;
 /// </summary>
 internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
 {
-    // Shares of the time left that the LP relaxation and the first plan's LP may use at most.
-    private const double RelaxationTimeShare = 0.2;
-    private const double FirstPlanTimeShare = 0.15;
+    // Shares of the time left that the LP relaxation and the first plan's LP may use at most: generous, because
+    // without them there is no bound and no safety net, and they normally take a small part of it.
+    private const double RelaxationTimeShare = 0.5;
+    private const double FirstPlanTimeShare = 0.5;
+    // HiGHS's first try at the asked gap, as a share of the time left; the second try's gap and least time.
+    private const double HighsFirstTryShare = 0.65;
+    private const double LooserGapPercent = 2.0;
+    private const double MinimumSecondTrySeconds = 3.0;
     private static readonly TimeSpan ProgressInterval = TimeSpan.FromMilliseconds(500);
 
     private readonly Stopwatch clock = Stopwatch.StartNew();
@@ -52,13 +57,12 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             cancellation.ThrowIfCancellationRequested();
 
             Report("solving");
-            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, Remaining(), notes));
-            cancellation.ThrowIfCancellationRequested();
+            var (status, gapPercent) = SolveWhole(solver, backend);
             if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
             {
                 whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
             }
-            return Finish(backend, solver, model, status, whole, firstPlan);
+            return Finish(backend, solver, model, status, gapPercent, whole, firstPlan);
         }
         finally
         {
@@ -67,7 +71,34 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         }
     }
 
-    private Plan Finish(string backend, Solver solver, PlanModel model, Solver.ResultStatus status, SolvedModel? whole, SolvedModel? firstPlan)
+    /// <summary>
+    /// HiGHS through OR-Tools 9.15 returns no solution at all when it stops on the time limit (status 99), even
+    /// with an incumbent: only reaching the gap gives a plan. So HiGHS first gets most of the time at the asked
+    /// gap and, failing that, the rest at a looser gap. SCIP returns its incumbent at the limit, so it runs once.
+    /// </summary>
+    private (Solver.ResultStatus Status, double GapPercent) SolveWhole(Solver solver, string backend)
+    {
+        if (backend != SolverBackend.Highs)
+        {
+            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, Remaining(), notes));
+            cancellation.ThrowIfCancellationRequested();
+            return (status, options.GapPercent);
+        }
+        var firstTry = Remaining() * HighsFirstTryShare;
+        var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
+        cancellation.ThrowIfCancellationRequested();
+        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds)
+        {
+            return (first, options.GapPercent);
+        }
+        var looser = Math.Max(options.GapPercent * 4, LooserGapPercent);
+        notes.Add($"HiGHS did not reach a {options.GapPercent:0.###} % gap in {firstTry:0} s; it was run again to a {looser:0.###} % gap");
+        var second = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options with { GapPercent = looser }, Remaining(), notes));
+        cancellation.ThrowIfCancellationRequested();
+        return (second, looser);
+    }
+
+    private Plan Finish(string backend, Solver solver, PlanModel model, Solver.ResultStatus status, double gapPercent, SolvedModel? whole, SolvedModel? firstPlan)
     {
         var info = new SolveInfo
         {
@@ -95,11 +126,10 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
                 : "the whole MILP found no better plan in time than the first plan rounded from the LP relaxation");
         }
 
-        var bound = Bounds.Best(backend, status, whole?.Objective, solver.Objective().BestBound(), relaxationBound, options.GapPercent, chosen.Objective, notes);
+        var bound = Bounds.Best(backend, status, whole?.Objective, solver.Objective().BestBound(), relaxationBound, gapPercent, chosen.Objective, notes);
         var gap = Bounds.GapPercent(chosen.Objective, bound);
-        var planStatus = chosen == whole
-            ? SolverBackend.StatusOf(status)
-            : gap <= options.GapPercent + 1e-9 ? SolveStatus.Optimal : SolveStatus.Feasible;
+        // Optimal means proven within the asked gap, whichever plan is kept and whichever try found it.
+        var planStatus = gap <= options.GapPercent + 1e-9 ? SolveStatus.Optimal : SolveStatus.Feasible;
         info = info with { Status = planStatus, Objective = chosen.Objective, BestBound = bound, GapPercent = gap };
 
         var plan = PlanExtractor.Extract(chosen.Model, info);
