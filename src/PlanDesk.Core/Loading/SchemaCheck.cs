@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Text.Json;
 using Json.Schema;
 
@@ -17,16 +18,69 @@ internal static class SchemaCheck
     /// <summary>The schema as a JSON document, for reading descriptions, examples and bounds into messages.</summary>
     public static JsonElement SchemaRoot => Loaded.Value.Document.RootElement;
 
+    /// <summary>The schema's problems with <paramref name="root"/>. The values of inline series are left to
+    /// <see cref="SeriesReader"/>: a schema library keeps a result per array item, which for a week of minute values
+    /// costs gigabytes, while the reader checks them in one pass.</summary>
     public static IReadOnlyList<LoadProblem> Check(JsonElement root, string file)
     {
-        var result = Loaded.Value.Schema.Evaluate(root, new EvaluationOptions { OutputFormat = OutputFormat.Hierarchical });
-        if (result.IsValid)
+        using var view = WithoutSeriesValues(root);
+        var schema = Loaded.Value.Schema;
+        // The flag form stops at the first failure and keeps no results; the full form runs only for a bad file.
+        if (schema.Evaluate(view.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.Flag }).IsValid)
         {
             return [];
         }
+        var result = schema.Evaluate(view.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.Hierarchical });
         var failures = new List<SchemaFailure>();
         Collect(result, failures);
-        return new SchemaMessages(SchemaRoot, root, file).Render(failures);
+        return new SchemaMessages(SchemaRoot, view.RootElement, file).Render(failures);
+    }
+
+    // A copy of the document in which every non-empty "values" list holds a single 0.
+    private static JsonDocument WithoutSeriesValues(JsonElement root)
+    {
+        var buffer = new ArrayBufferWriter<byte>();
+        using (var writer = new Utf8JsonWriter(buffer))
+        {
+            Copy(root, writer);
+        }
+        return JsonDocument.Parse(buffer.WrittenMemory, new JsonDocumentOptions { MaxDepth = NetworkLoader.MaxDepth + 1 });
+    }
+
+    private static void Copy(JsonElement element, Utf8JsonWriter writer)
+    {
+        switch (element.ValueKind)
+        {
+            case JsonValueKind.Object:
+                writer.WriteStartObject();
+                foreach (var property in element.EnumerateObject())
+                {
+                    writer.WritePropertyName(property.Name);
+                    if (property.Name == "values" && property.Value.ValueKind == JsonValueKind.Array && property.Value.GetArrayLength() > 0)
+                    {
+                        writer.WriteStartArray();
+                        writer.WriteNumberValue(0);
+                        writer.WriteEndArray();
+                    }
+                    else
+                    {
+                        Copy(property.Value, writer);
+                    }
+                }
+                writer.WriteEndObject();
+                break;
+            case JsonValueKind.Array:
+                writer.WriteStartArray();
+                foreach (var item in element.EnumerateArray())
+                {
+                    Copy(item, writer);
+                }
+                writer.WriteEndArray();
+                break;
+            default:
+                element.WriteTo(writer);
+                break;
+        }
     }
 
     public static string Text()

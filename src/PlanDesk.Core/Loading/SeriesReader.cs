@@ -47,7 +47,7 @@ internal static class SeriesReader
 
     private static Series? ReadInline(Node at, LoadContext context, ValueRule rule)
     {
-        var values = at.Items("values").Select(v => v.Element.ValueKind == JsonValueKind.Number ? v.Element.GetDouble() : double.NaN).ToList();
+        var values = ReadValues(at, context);
         var stepMinutes = at.Int("stepMinutes", 0);
         var startText = at.Text("start");
         Instant? start = null;
@@ -66,6 +66,35 @@ internal static class SeriesReader
             return null;
         }
         return new StepSeries(start.Value, Duration.FromMinutes(stepMinutes), values) { Origin = at.Path };
+    }
+
+    // The schema does not see series values (see SchemaCheck), so their type is checked here.
+    private static List<double> ReadValues(Node series, LoadContext context)
+    {
+        var values = new List<double>();
+        var wrong = 0;
+        if (series.Field("values") is not { Element.ValueKind: JsonValueKind.Array } array)
+        {
+            return values;
+        }
+        foreach (var item in array.Element.EnumerateArray())
+        {
+            if (item.ValueKind == JsonValueKind.Number)
+            {
+                values.Add(item.GetDouble());
+                continue;
+            }
+            if (++wrong <= MaxValueProblems)
+            {
+                context.Add($"{array.Path}[{values.Count}]", $"{JsonPaths.Show(item)} is {JsonPaths.KindOf(item)}, not a number", "give a value of the series, e.g. 420");
+            }
+            values.Add(double.NaN);
+        }
+        if (wrong > MaxValueProblems)
+        {
+            context.Add(series.PathOf("values"), $"{wrong - MaxValueProblems} more values are not numbers", "give every value as a number, e.g. 420");
+        }
+        return values;
     }
 
     private static Series? ReadCsv(Node at, LoadContext context, ValueRule rule)

@@ -135,6 +135,14 @@ public class FieldRuleTests
     }
 
     [Fact]
+    public void InlineSeriesWithoutValuesIsRejected()
+    {
+        var result = LoadChanged(n => Plant(n)["influentM3PerHour"]!["values"] = new JsonArray());
+
+        Assert.Contains("the list has 0 entries but needs at least 1", ProblemAt(result, "$.plants[0].influentM3PerHour.values").What);
+    }
+
+    [Fact]
     public void NegativeInfluentValueIsReportedAtItsIndex()
     {
         var result = LoadChanged(n => Plant(n)["influentM3PerHour"]!["values"]![2] = -450);
