@@ -84,6 +84,11 @@ internal sealed class CsvFiles(LoadContext context)
             return null;
         }
         var columns = header.Skip(1).ToList();
+        if (columns.GroupBy(c => c).FirstOrDefault(g => g.Count() > 1) is { } repeated)
+        {
+            context.AddIn(display, "line 1", $"the column '{repeated.Key}' appears twice in the header", "give each column its own name");
+            return null;
+        }
         var times = new List<Instant>();
         var lineNumbers = new List<int>();
         var values = columns.ToDictionary(c => c, _ => new List<double>());
@@ -103,7 +108,7 @@ internal sealed class CsvFiles(LoadContext context)
                 usable = false;
                 continue;
             }
-            if (TimeText.ParseInstant(fields[0]) is not { } time)
+            if (TimeText.ParseInstant(fields[0]) is not { } time || !TimeText.IsPlausible(time))
             {
                 context.AddIn(display, $"line {line}, column 'timestamp'", $"'{fields[0]}' is not an ISO-8601 timestamp with an offset",
                     "write it like 2027-03-26T00:00:00+01:00 or 2027-03-25T23:00:00Z");

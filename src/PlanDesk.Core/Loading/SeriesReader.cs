@@ -23,6 +23,8 @@ internal sealed record ValueRule(Func<double, bool> Accepts, string Problem, str
 internal static class SeriesReader
 {
     private const int MaxValueProblems = 5;
+    // Fifty years of minutes: far beyond any use, and safely inside NodaTime's range from any plausible start.
+    private const double MaxSpanMinutes = 50 * 525_600;
 
     /// <summary>The series at <paramref name="node"/>, or null when it is missing or unusable (problems reported).
     /// Every value is checked against <paramref name="rule"/>.</summary>
@@ -61,6 +63,12 @@ internal static class SeriesReader
             start = instant;
         }
         Check(context, rule, values, i => (context.File, $"{at.PathOf("values")}[{i}]"));
+        if ((double)stepMinutes * values.Count > MaxSpanMinutes)
+        {
+            context.Add(at.PathOf("values"), $"{values.Count} values of {stepMinutes} min span more than {MaxSpanMinutes / 525_600} years",
+                "give the values for the weeks to be planned, not decades");
+            return null;
+        }
         if (start is null || stepMinutes < 1 || values.Count == 0 || values.Any(double.IsNaN))
         {
             return null;
@@ -125,10 +133,15 @@ internal static class SeriesReader
 
     private static void Check(LoadContext context, ValueRule rule, IReadOnlyList<double> values, Func<int, (string File, string Location)> place)
     {
-        var bad = Enumerable.Range(0, values.Count).Where(i => !double.IsNaN(values[i]) && !rule.Accepts(values[i])).ToList();
+        var bad = Enumerable.Range(0, values.Count).Where(i => !double.IsNaN(values[i]) && !(Math.Abs(values[i]) <= SchemaCheck.MaxMagnitude && rule.Accepts(values[i]))).ToList();
         foreach (var i in bad.Take(MaxValueProblems))
         {
             var (file, location) = place(i);
+            if (Math.Abs(values[i]) > SchemaCheck.MaxMagnitude)
+            {
+                context.AddIn(file, location, $"{values[i]} is far too large", "check the number; no quantity in a network file is above 1e15");
+                continue;
+            }
             context.AddIn(file, location, $"{values[i]} {rule.Problem}", rule.Fix);
         }
         if (bad.Count > MaxValueProblems)
