@@ -90,6 +90,7 @@ internal sealed class CsvFiles(LoadContext context)
             return null;
         }
         var times = new List<Instant>();
+        var written = new List<string>();
         var lineNumbers = new List<int>();
         var values = columns.ToDictionary(c => c, _ => new List<double>());
         var usable = true;
@@ -116,6 +117,7 @@ internal sealed class CsvFiles(LoadContext context)
                 continue;
             }
             times.Add(time);
+            written.Add(fields[0]);
             lineNumbers.Add(line);
             for (var c = 0; c < columns.Count; c++)
             {
@@ -143,12 +145,12 @@ internal sealed class CsvFiles(LoadContext context)
             context.AddIn(display, "", $"has {times.Count} data row(s); a CSV series needs at least two so its step can be seen", "add rows covering the horizon");
             return null;
         }
-        var step = CheckSteps(times, lineNumbers, display, ref usable);
+        var step = CheckSteps(times, written, lineNumbers, display, ref usable);
         return new CsvTable(display, columns, times, lineNumbers, step, values.ToDictionary(v => v.Key, v => v.Value.ToArray()), usable);
     }
 
     // The step is the most common gap between rows; every other gap is a repeated, missing or out-of-order timestamp.
-    private Duration CheckSteps(List<Instant> times, List<int> lines, string display, ref bool usable)
+    private Duration CheckSteps(List<Instant> times, List<string> written, List<int> lines, string display, ref bool usable)
     {
         var gaps = Enumerable.Range(1, times.Count - 1).Select(i => times[i] - times[i - 1]).ToList();
         var step = gaps.Where(g => g > Duration.Zero).GroupBy(g => g).OrderByDescending(g => g.Count()).Select(g => g.Key).FirstOrDefault();
@@ -162,13 +164,13 @@ internal sealed class CsvFiles(LoadContext context)
             }
             usable = false;
             var (what, fix) = gap == Duration.Zero
-                ? ($"timestamp {times[i]} repeats line {lines[i - 1]}", "remove one of the two rows")
+                ? ($"timestamp {written[i]} repeats line {lines[i - 1]}", "remove one of the two rows")
                 : gap < Duration.Zero
-                    ? ($"timestamp {times[i]} is earlier than line {lines[i - 1]}", "sort the rows by time")
+                    ? ($"timestamp {written[i]} is earlier than line {lines[i - 1]}", "sort the rows by time")
                     : step > Duration.Zero && gap.BclCompatibleTicks % step.BclCompatibleTicks == 0
-                        ? ($"{gap.BclCompatibleTicks / step.BclCompatibleTicks - 1} timestamp(s) missing after line {lines[i - 1]} ({times[i - 1]} to {times[i]})",
+                        ? ($"{gap.BclCompatibleTicks / step.BclCompatibleTicks - 1} timestamp(s) missing after line {lines[i - 1]} ({written[i - 1]} to {written[i]})",
                             $"add the missing rows; the file's step is {stepText}")
-                        : ($"timestamp {times[i]} is not one step of {stepText} after line {lines[i - 1]}", $"use the same step of {stepText} throughout");
+                        : ($"timestamp {written[i]} is not one step of {stepText} after line {lines[i - 1]}", $"use the same step of {stepText} throughout");
             context.AddIn(display, $"line {lines[i]}", what, fix);
         }
         return step;
