@@ -180,11 +180,9 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
             {
                 "properties" when i + 1 < evaluationPath.Count => Child(Child(node, "properties"), evaluationPath[++i]),
                 "items" or "additionalProperties" => Child(node, segment),
-                "$ref" => node.TryGetProperty("$ref", out var r) ? Follow(r.GetString()) : null,
-                "then" or "else" or "if" or "not" => Child(node, segment),
-                "allOf" or "oneOf" or "anyOf" when i + 1 < evaluationPath.Count && int.TryParse(evaluationPath[++i], out var k) =>
-                    Child(node, segment) is { ValueKind: JsonValueKind.Array } list && k < list.GetArrayLength() ? list[k] : null,
-                _ => null,
+                "$ref" => Child(node, "$ref") is { ValueKind: JsonValueKind.String } reference ? Follow(reference.GetString()) : null,
+                "then" or "else" => Child(node, segment),
+                _ => null, // oneOf and if branches are never reported (see SchemaCheck.Collect)
             };
             if (next is not { } found)
             {
