@@ -99,15 +99,17 @@ internal sealed partial class PlanModel
                 EqualRow(influent[t], Name("influent", plant.Id, P(t))).Add(treated, 1).Add(bypass, 1);
                 Costs.Add(CostComponent.BypassPenalty, bypass, Penalties.BypassPerM3);
 
+                // The gate's big-M is the most that can be treated in the period: the tighter, the better the relaxation.
+                var mostTreatedM3 = Math.Min(capacityM3, influent[t]);
                 var split = EqualRow(0, Name("treated-split", plant.Id, P(t))).Add(treated, 1);
                 foreach (var level in AllowedLevels[plant.Id])
                 {
-                    var atLevel = NumVar(0, capacityM3, Name("treated-at", plant.Id, P(t), level.Id));
+                    var atLevel = NumVar(0, mostTreatedM3, Name("treated-at", plant.Id, P(t), level.Id));
                     TreatedAtLevel[(plant.Id, t, level.Id)] = atLevel;
                     split.Add(atLevel, -1);
                     AtMostRow(0, Name("level-gate", plant.Id, P(t), level.Id))
                         .Add(atLevel, 1)
-                        .Add(LevelOn[(plant.Id, period.Day, level.Id)], -capacityM3);
+                        .Add(LevelOn[(plant.Id, period.Day, level.Id)], -mostTreatedM3);
                     AddLoad(plant.Id, t, atLevel, level.AerationEnergyKWhPerM3);
                     Costs.Add(CostComponent.Chemicals, atLevel, level.ChemicalCostPerM3);
                 }

@@ -21,17 +21,63 @@ internal static class FirstPlan
 {
     private const double Tolerance = 1e-6;
 
+    // Rounds of switching plant-days over a daily cap to the next tighter level.
+    private const int LevelRepairRounds = 3;
+
     public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes)
     {
         var rounded = Round(relaxed);
         var plan = SolveFixed(planningCase, rounded, options, timeLimitSeconds, notes);
         if (plan is not null)
         {
-            return plan;
+            return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds, notes);
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
         var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
         return SolveFixed(planningCase, levelsOnly, options, timeLimitSeconds, notes);
+    }
+
+    /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
+    /// move to the next tighter level while that makes the plan cheaper.</summary>
+    private static SolvedModel TightenLevelsOverCaps(PlanningCase planningCase, SolvedModel plan, Dictionary<string, double> values,
+        SolveOptions options, double timeLimitSeconds, List<string> notes)
+    {
+        for (var round = 0; round < LevelRepairRounds; round++)
+        {
+            var tighter = new Dictionary<string, double>(values);
+            var changed = false;
+            foreach (var ((plantId, nutrientKey, day), excess) in plan.Model.DailyLoadExcess)
+            {
+                if (excess.SolutionValue() <= Tolerance)
+                {
+                    continue;
+                }
+                var plant = planningCase.Network.Plant(plantId);
+                var nutrient = PermitNutrient.Of(plant).First(n => n.Key == nutrientKey);
+                var levels = plan.Model.AllowedLevels[plantId].OrderBy(nutrient.EffluentMgPerL).ToList();
+                var name = (TreatmentLevel level) => plan.Model.LevelOn[(plantId, day, level.Id)].Name();
+                var current = levels.FindIndex(l => tighter[name(l)] > 0.5);
+                if (current > 0)
+                {
+                    tighter[name(levels[current])] = 0;
+                    tighter[name(levels[current - 1])] = 1;
+                    changed = true;
+                }
+            }
+            if (!changed)
+            {
+                break;
+            }
+            var candidate = SolveFixed(planningCase, tighter, options, timeLimitSeconds, notes);
+            if (candidate is null || candidate.Objective >= plan.Objective - Tolerance)
+            {
+                candidate?.Dispose();
+                break;
+            }
+            plan.Dispose();
+            (plan, values) = (candidate, tighter);
+        }
+        return plan;
     }
 
     private static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,
