@@ -9,5 +9,7 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         GenerateCommand.Create(),
+        BenchCommand.Create(),
+        BenchOneCommand.Create(),
     ];
 }
