@@ -39,6 +39,20 @@ public sealed class GenerateCommandTests : IDisposable
         Assert.Equal(NetworkFileWriter.Write(region.Network, region.Heads), File.ReadAllText(Path.Combine(directory, "network.json")));
     }
 
+    [Theory]
+    [InlineData("S", 11)]
+    [InlineData("XL", 12)]
+    public void GeneratedFilePassesValidate(string size, int seed)
+    {
+        GenerateCommand.Run(size, seed, directory, new StringWriter(), new StringWriter());
+        var output = new StringWriter();
+
+        var exit = ValidateCommand.Run(Path.Combine(directory, "network.json"), output);
+
+        Assert.True(exit == 0, output.ToString());
+        Assert.Contains("valid.", output.ToString());
+    }
+
     [Fact]
     public void UnknownSizeIsRefusedWithTheSizesThatExist()
     {
