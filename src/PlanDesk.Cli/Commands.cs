@@ -9,5 +9,8 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         SolveCommand.Create(),
+        GenerateCommand.Create(),
+        BenchCommand.Create(),
+        BenchOneCommand.Create(),
     ];
 }
