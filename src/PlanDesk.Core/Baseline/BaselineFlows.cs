@@ -1,0 +1,195 @@
+using PlanDesk.Core.Checking;
+using PlanDesk.Core.Model;
+
+namespace PlanDesk.Core.Baseline;
+
+/// <summary>
+/// One period of the operator's rules, walking the tanks upstream first: treat all influent the secondary
+/// stage can take; from each tank serve customers by contract priority, then pass on what downstream tanks
+/// and stages asked for; then run the tank's own stages on secondary effluent to bring it back towards its
+/// start level. Units and pumps keep to their flow ranges, availability and minimum run times.
+/// </summary>
+internal sealed class BaselineFlows
+{
+    private const double Rounding = 1e-9;
+    private readonly BaselineState _state;
+    private readonly TankOrder _order;
+    private readonly int _t;
+    private readonly PeriodRequests _requests;
+    private readonly Dictionary<PlantId, double> _pool = [];
+    private readonly Dictionary<TankId, double> _inflow = [];
+    private readonly Dictionary<CustomerId, double> _carry = [];
+    private readonly Dictionary<CustomerId, double> _blendSlack = [];
+
+    private BaselineFlows(BaselineState state, TankOrder order, int t)
+    {
+        _state = state;
+        _order = order;
+        _t = t;
+        Treat();
+        _requests = PeriodRequests.Compute(state, order, t);
+    }
+
+    private Network Network => _state.Case.Network;
+    private double Hours => _state.Case.PeriodHours;
+
+    public static void Run(BaselineState state, TankOrder order, int t)
+    {
+        var flows = new BaselineFlows(state, order, t);
+        foreach (var tank in order.UpstreamFirst)
+        {
+            flows.ServeFrom(tank);
+        }
+        foreach (var plant in state.Case.Network.Plants)
+        {
+            state.SecondaryToOutfall[plant.Id][t] = Math.Max(0, flows._pool[plant.Id]);
+        }
+    }
+
+    private void Treat()
+    {
+        foreach (var plant in Network.Plants)
+        {
+            var influent = _state.Case.InfluentM3[plant.Id][_t];
+            var treated = Math.Min(influent, plant.SecondaryCapacityM3PerHour * Hours);
+            _state.Treated[plant.Id][_t] = treated;
+            _state.Bypass[plant.Id][_t] = influent - treated;
+            _pool[plant.Id] = treated;
+        }
+    }
+
+    private void ServeFrom(Tank tank)
+    {
+        var start = _state.VolumeBefore(tank, _t) * PeriodRequests.Keep(tank, Hours);
+        var fixedIn = _inflow.GetValueOrDefault(tank.Id);
+        var ownStages = Network.Stages.Where(s => s.ProductTank == tank.Id && s.FeedTank is null && _order.Uses(s)).ToList();
+        var poolLeft = new Dictionary<PlantId, double>(_pool);
+        var ownMostProduct = 0.0;
+        foreach (var stage in ownStages)
+        {
+            var feed = Math.Min(StageUnitRules.MostFeedM3(_state, _order, stage, _t), poolLeft[stage.Plant]);
+            poolLeft[stage.Plant] -= feed;
+            ownMostProduct += feed * stage.RecoveryFraction;
+        }
+        var available = Math.Max(0, start + fixedIn + ownMostProduct - tank.MinM3);
+        var outM3 = Deliver(tank, available);
+        outM3 += PassDownstream(tank, available - outM3);
+        var product = Produce(tank, ownStages, start, fixedIn, outM3);
+        var volume = start + fixedIn + product - outM3;
+        _state.Volume[tank.Id][_t] = volume;
+        if (volume < tank.MinM3 - 1e-6 || volume > tank.MaxM3 + 1e-6)
+        {
+            var below = volume < tank.MinM3;
+            _state.Issues.Add(new BaselineIssue(below ? ViolationKind.TankMin : ViolationKind.TankMax, tank.Id.Value, _t,
+                below ? tank.MinM3 - volume : volume - tank.MaxM3, "m3",
+                $"tank {tank.Id} could not be kept {(below ? "above its minimum" : "below its maximum")}: units kept on for their minimum run"));
+        }
+    }
+
+    // Customers by contract priority; each pipeline is asked for its share plus what the customer's other
+    // pipelines could not bring, never more than the customer may take or its blend limit allows.
+    private double Deliver(Tank tank, double available)
+    {
+        var outM3 = 0.0;
+        var lines = Network.Pipelines.Where(l => l.From == tank.Id && l.To.Customer is not null && _order.Uses(l))
+            .OrderBy(l => Network.Customer(l.To.Customer!.Value).Priority);
+        foreach (var line in lines)
+        {
+            var customer = Network.Customer(line.To.Customer!.Value);
+            var sent = _state.Delivered[customer.Id][_t];
+            var wants = Math.Max(0, _requests.Customer[customer.Id] - sent);
+            var mayTake = customer.Demand is DailyDemand
+                ? Math.Min(PeriodRequests.DayRemainingM3(_state, customer, _t) - sent, _state.Case.MaxDeliveryM3[customer.Id][_t] - sent)
+                : wants;
+            var high = Math.Min(available - outM3, Math.Max(0, mayTake));
+            double? value = customer.Blend is { } blend ? PeriodRequests.BlendValue(Network, line, blend.Parameter) : null;
+            if (customer.Blend is { } limit && value > limit.Max)
+            {
+                high = Math.Min(high, _blendSlack.GetValueOrDefault(customer.Id) / (value.Value - limit.Max));
+            }
+            var asked = _requests.Pipeline.GetValueOrDefault(line.Id);
+            var target = Math.Min(asked + _carry.GetValueOrDefault(customer.Id), wants);
+            var flow = Carry(line, target, high, roundUp: customer.Demand is DailyDemand);
+            _carry[customer.Id] = Math.Max(0, _carry.GetValueOrDefault(customer.Id) + asked - flow);
+            _state.Delivered[customer.Id][_t] += flow;
+            if (customer.Blend is { } b && value is { } v)
+            {
+                _blendSlack[customer.Id] = _blendSlack.GetValueOrDefault(customer.Id) + flow * (b.Max - v);
+            }
+            outM3 += flow;
+        }
+        return outM3;
+    }
+
+    // Transfers to downstream tanks and stages fed from this tank get what they asked for, as far as the
+    // tank has water and the receiving tank has room.
+    private double PassDownstream(Tank tank, double available)
+    {
+        var outM3 = 0.0;
+        foreach (var line in Network.Pipelines.Where(l => l.From == tank.Id && l.To.Tank is not null && _order.Uses(l)))
+        {
+            var to = line.To.Tank!.Value;
+            var high = Math.Min(available - outM3, Room(Network.Tank(to)));
+            var flow = Carry(line, _requests.Pipeline.GetValueOrDefault(line.Id), high, roundUp: false);
+            _inflow[to] = _inflow.GetValueOrDefault(to) + flow;
+            outM3 += flow;
+        }
+        foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s)))
+        {
+            var high = Math.Min(available - outM3, Room(Network.Tank(stage.ProductTank)) / stage.RecoveryFraction);
+            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high);
+            StageUnitRules.Record(_state, stage, _t, choice);
+            _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
+            outM3 += choice.FlowM3;
+        }
+        return outM3;
+    }
+
+    // The tank's own stages refill it towards its start level: at least enough to stay above the minimum,
+    // at most what fits below the maximum.
+    private double Produce(Tank tank, List<Stage> stages, double start, double fixedIn, double outM3)
+    {
+        var low = Math.Max(0, outM3 + tank.MinM3 - start - fixedIn);
+        var high = outM3 + tank.MaxM3 - start - fixedIn;
+        var want = Math.Clamp(outM3 + tank.InitialM3 - start - fixedIn, low, Math.Max(low, high));
+        var product = 0.0;
+        foreach (var stage in stages)
+        {
+            var r = stage.RecoveryFraction;
+            var pool = _pool[stage.Plant];
+            var choice = StageUnitRules.Choose(_state, _order, stage, _t, (want - product) / r, (low - product) / r, Math.Min((high - product) / r, pool));
+            if (choice.FlowM3 > pool + Rounding)
+            {
+                _state.Issues.Add(new BaselineIssue(ViolationKind.StageFlowMin, stage.Id.Value, _t, choice.FlowM3 - pool, "m3",
+                    $"stage {stage.Id} had units on for their minimum run but too little secondary effluent to feed them"));
+                choice = choice with { FlowM3 = pool };
+            }
+            StageUnitRules.Record(_state, stage, _t, choice);
+            _pool[stage.Plant] -= choice.FlowM3;
+            product += choice.FlowM3 * r;
+        }
+        return product;
+    }
+
+    // Room a receiving tank has, counting on it passing on what was asked of it this period.
+    private double Room(Tank tank) =>
+        Math.Max(0, tank.MaxM3 - _state.VolumeBefore(tank, _t) * PeriodRequests.Keep(tank, Hours) - _inflow.GetValueOrDefault(tank.Id)
+            + _requests.Outflow[tank.Id]);
+
+    private double Carry(Pipeline line, double target, double high, bool roundUp)
+    {
+        FlowChoice choice;
+        if (line.Pumps is { } pumps)
+        {
+            choice = FlowChoices.Nearest(target, 0, high, 0, pumps.Count, pumps.MinFlowM3PerHour * Hours, pumps.MaxFlowM3PerHour * Hours,
+                line.CapacityM3PerHour * Hours, roundUp);
+            _state.Pumps[line.Id][_t] = choice.Count;
+        }
+        else
+        {
+            choice = new FlowChoice(Math.Clamp(target, 0, Math.Max(0, Math.Min(high, line.CapacityM3PerHour * Hours))), 0);
+        }
+        _state.Flow[line.Id][_t] = choice.FlowM3;
+        return choice.FlowM3;
+    }
+}
