@@ -9,7 +9,7 @@ namespace PlanDesk.Core.Tests.Checking;
 public class EnergyMutationTests
 {
     private readonly Model.PlanningCase _case = SmallNetwork.Case();
-    private static readonly string Plant = SmallNetwork.Plant.Value;
+    private static readonly string Plant = SmallNetwork.Norwick.Value;
 
     private Plan Valid() => PlanRestate.Copy(RuleBasedBaseline.Build(_case));
 

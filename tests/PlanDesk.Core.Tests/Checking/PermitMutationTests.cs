@@ -15,13 +15,13 @@ public class PermitMutationTests
     {
         var loose = SmallNetwork.Case();
         var plan = RuleBasedBaseline.Build(loose);
-        var loadKg = PlanCosting.Compute(loose, plan).Plants[SmallNetwork.Plant].TotalNitrogen.KgByDay[0];
+        var loadKg = PlanCosting.Compute(loose, plan).Plants[SmallNetwork.Norwick].TotalNitrogen.KgByDay[0];
         var tight = SmallNetwork.Case(WithPermit(p => p with { DailyTotalNitrogenKg = loadKg - 10 }));
 
         var report = PlanChecker.Check(tight, PlanRestate.Costs(tight, plan));
 
         var found = Assert.Single(report.Violations);
-        Assert.Equal((ViolationKind.DailyNitrogenCap, SmallNetwork.Plant.Value, Start), (found.Kind, found.Where, found.Day));
+        Assert.Equal((ViolationKind.DailyNitrogenCap, SmallNetwork.Norwick.Value, Start), (found.Kind, found.Where, found.Day));
         Assert.Equal(10, found.Amount, 6);
         Assert.True(found.Penalised);
     }
@@ -33,7 +33,7 @@ public class PermitMutationTests
         var marchEnd = new NodaTime.LocalDate(2027, 3, 31);
         var loose = SmallNetwork.Case(start: marchEnd, days: 2);
         var plan = RuleBasedBaseline.Build(loose);
-        var load = PlanCosting.Compute(loose, plan).Plants[SmallNetwork.Plant].TotalNitrogen;
+        var load = PlanCosting.Compute(loose, plan).Plants[SmallNetwork.Norwick].TotalNitrogen;
         const double monthToDateKg = 3000;
         var capKg = monthToDateKg + load.KgByDay[0] - 14;
         Assert.True(monthToDateKg + load.KgByDay[1] > capKg, "the test needs April to break the cap if month-to-date were wrongly added");
@@ -57,7 +57,7 @@ public class PermitMutationTests
         var report = PlanChecker.Check(planningCase, PlanRestate.Flows(planningCase, plan with { Plants = [plan.Plants[0] with { LevelByDay = levels }] }));
 
         Assert.Equal(2, report.Violations.Count);
-        Assert.All(report.Violations, v => Assert.Equal((ViolationKind.ConcentrationLimit, SmallNetwork.Plant.Value, Start), (v.Kind, v.Where, v.Day)));
+        Assert.All(report.Violations, v => Assert.Equal((ViolationKind.ConcentrationLimit, SmallNetwork.Norwick.Value, Start), (v.Kind, v.Where, v.Day)));
         Assert.Equal([3.0, 0.5], report.Violations.Select(v => Math.Round(v.Amount, 6)));
     }
 

@@ -13,7 +13,7 @@ internal static class SmallNetwork
 {
     public static readonly LocalDate Start = new(2027, 3, 10);
 
-    public static readonly PlantId Plant = new("norwick");
+    public static readonly PlantId Norwick = new("norwick");
     public static readonly StageId Filter = new("norwick-filter");
     public static readonly TankId ClassATank = new("norwick-a");
     public static readonly TankId ClassCTank = new("norwick-c");
@@ -37,19 +37,19 @@ internal static class SmallNetwork
             new QualityClass(new ClassId("C"), "Class C", 1, new Dictionary<string, double> { ["conductivityUsPerCm"] = 1500 }),
         ],
         Tariffs = [Tariff()],
-        Plants = [Norwick()],
+        Plants = [NorwickPlant()],
         Tanks =
         [
-            new Tank(ClassATank, "Norwick class A tank", Plant, new ClassId("A"), 200, 2500, 900, 0),
-            new Tank(ClassCTank, "Norwick class C tank", Plant, new ClassId("C"), 0, 1000, 500, 0),
+            new Tank(ClassATank, "Norwick class A tank", Norwick, new ClassId("A"), 200, 2500, 900, 0),
+            new Tank(ClassCTank, "Norwick class C tank", Norwick, new ClassId("C"), 0, 1000, 500, 0),
             new Tank(Reservoir, "Hillcrest reservoir", null, new ClassId("A"), 100, 1500, 600, 0.01),
         ],
         Pipelines =
         [
-            new Pipeline(ToReservoir, "Norwick to Hillcrest", ClassATank, PipelineEnd.ToTank(Reservoir), 200, 0.15, Plant, null),
-            new Pipeline(ReservoirToOrchard, "Hillcrest to Tarn Orchard", Reservoir, PipelineEnd.ToCustomer(Orchard), 260, 0.02, Plant, null),
-            new Pipeline(ToPark, "Norwick to Mere Park", ClassATank, PipelineEnd.ToCustomer(Park), 260, 0.12, Plant, new PumpSet(2, 50, 130)),
-            new Pipeline(WrongClassToOrchard, "Norwick class C to Tarn Orchard", ClassCTank, PipelineEnd.ToCustomer(Orchard), 100, 0.05, Plant, null),
+            new Pipeline(ToReservoir, "Norwick to Hillcrest", ClassATank, PipelineEnd.ToTank(Reservoir), 200, 0.15, Norwick, null),
+            new Pipeline(ReservoirToOrchard, "Hillcrest to Tarn Orchard", Reservoir, PipelineEnd.ToCustomer(Orchard), 260, 0.02, Norwick, null),
+            new Pipeline(ToPark, "Norwick to Mere Park", ClassATank, PipelineEnd.ToCustomer(Park), 260, 0.12, Norwick, new PumpSet(2, 50, 130)),
+            new Pipeline(WrongClassToOrchard, "Norwick class C to Tarn Orchard", ClassCTank, PipelineEnd.ToCustomer(Orchard), 100, 0.05, Norwick, null),
         ],
         Customers =
         [
@@ -85,9 +85,9 @@ internal static class SmallNetwork
         GridEmissionsKgPerMWh = 250,
     };
 
-    public static Plant Norwick() => new()
+    public static Plant NorwickPlant() => new()
     {
-        Id = Plant,
+        Id = Norwick,
         Name = "Norwick WRRF",
         Tariff = new TariffId("norwick-grid"),
         InfluentM3PerHour = Series.Constant(500),
@@ -107,7 +107,7 @@ internal static class SmallNetwork
         [
             new Stage
             {
-                Id = Filter, Name = "Sand filters with UV", Plant = Plant, FeedTank = null, ProductTank = ClassATank,
+                Id = Filter, Name = "Sand filters with UV", Plant = Norwick, FeedTank = null, ProductTank = ClassATank,
                 ProducesClass = new ClassId("A"), RecoveryFraction = 0.97, EnergyKWhPerM3 = 0.06, ChemicalCostPerM3 = 0.01,
                 Units = 3, UnitMinFlowM3PerHour = 40, UnitMaxFlowM3PerHour = 120, StartupCost = 12, MinRunHours = 3, InitialUnitsRunning = 1,
             },
