@@ -11,7 +11,6 @@ namespace PlanDesk.Core.Baseline;
 /// </summary>
 internal sealed class BaselineFlows
 {
-    private const double Rounding = 1e-9;
     private readonly BaselineState _state;
     private readonly TankOrder _order;
     private readonly int _t;
@@ -65,16 +64,21 @@ internal sealed class BaselineFlows
         var ownStages = Network.Stages.Where(s => s.ProductTank == tank.Id && s.FeedTank is null && _order.Uses(s)).ToList();
         var poolLeft = new Dictionary<PlantId, double>(_pool);
         var ownMostProduct = 0.0;
+        var roomIfServed = tank.MaxM3 - start - fixedIn + _requests.Outflow[tank.Id];
         foreach (var stage in ownStages)
         {
-            var feed = Math.Min(StageUnitRules.MostFeedM3(_state, _order, stage, _t), poolLeft[stage.Plant]);
+            var feed = Math.Min(StageUnitRules.MostFeedM3(_state, _order, stage, _t, roomIfServed - ownMostProduct), poolLeft[stage.Plant]);
             poolLeft[stage.Plant] -= feed;
             ownMostProduct += feed * stage.RecoveryFraction;
         }
-        var available = Math.Max(0, start + fixedIn + ownMostProduct - tank.MinM3);
-        var outM3 = Deliver(tank, available);
+        var floor = Floor(tank);
+        var available = Math.Max(0, start + fixedIn + ownMostProduct - floor);
+        // Units kept on for their minimum run draw their least flow whatever customers take.
+        var committed = Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s))
+            .Sum(s => StageUnitRules.Allowed(_state, _order, s, _t).Fewest * s.UnitMinFlowM3PerHour * Hours);
+        var outM3 = Deliver(tank, Math.Max(0, available - committed));
         outM3 += PassDownstream(tank, available - outM3);
-        var product = Produce(tank, ownStages, start, fixedIn, outM3);
+        var product = Produce(tank, ownStages, start, fixedIn, outM3, floor);
         var volume = start + fixedIn + product - outM3;
         _state.Volume[tank.Id][_t] = volume;
         if (volume < tank.MinM3 - 1e-6 || volume > tank.MaxM3 + 1e-6)
@@ -121,11 +125,20 @@ internal sealed class BaselineFlows
         return outM3;
     }
 
-    // Transfers to downstream tanks and stages fed from this tank get what they asked for, as far as the
-    // tank has water and the receiving tank has room.
+    // Stages fed from this tank, then transfers to downstream tanks, get what they asked for, as far as the
+    // tank has water and the receiving tank has room (stages first: units kept on for their minimum run must be fed).
     private double PassDownstream(Tank tank, double available)
     {
         var outM3 = 0.0;
+        foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s)))
+        {
+            var room = Room(Network.Tank(stage.ProductTank));
+            var high = Math.Min(available - outM3, room / stage.RecoveryFraction);
+            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high, room, available - outM3);
+            StageUnitRules.Record(_state, stage, _t, choice);
+            _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
+            outM3 += choice.FlowM3;
+        }
         foreach (var line in Network.Pipelines.Where(l => l.From == tank.Id && l.To.Tank is not null && _order.Uses(l)))
         {
             var to = line.To.Tank!.Value;
@@ -134,22 +147,14 @@ internal sealed class BaselineFlows
             _inflow[to] = _inflow.GetValueOrDefault(to) + flow;
             outM3 += flow;
         }
-        foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s)))
-        {
-            var high = Math.Min(available - outM3, Room(Network.Tank(stage.ProductTank)) / stage.RecoveryFraction);
-            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high);
-            StageUnitRules.Record(_state, stage, _t, choice);
-            _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
-            outM3 += choice.FlowM3;
-        }
         return outM3;
     }
 
     // The tank's own stages refill it towards its start level: at least enough to stay above the minimum,
     // at most what fits below the maximum.
-    private double Produce(Tank tank, List<Stage> stages, double start, double fixedIn, double outM3)
+    private double Produce(Tank tank, List<Stage> stages, double start, double fixedIn, double outM3, double floor)
     {
-        var low = Math.Max(0, outM3 + tank.MinM3 - start - fixedIn);
+        var low = Math.Max(0, outM3 + floor - start - fixedIn);
         var high = outM3 + tank.MaxM3 - start - fixedIn;
         var want = Math.Clamp(outM3 + tank.InitialM3 - start - fixedIn, low, Math.Max(low, high));
         var product = 0.0;
@@ -157,18 +162,22 @@ internal sealed class BaselineFlows
         {
             var r = stage.RecoveryFraction;
             var pool = _pool[stage.Plant];
-            var choice = StageUnitRules.Choose(_state, _order, stage, _t, (want - product) / r, (low - product) / r, Math.Min((high - product) / r, pool));
-            if (choice.FlowM3 > pool + Rounding)
-            {
-                _state.Issues.Add(new BaselineIssue(ViolationKind.StageFlowMin, stage.Id.Value, _t, choice.FlowM3 - pool, "m3",
-                    $"stage {stage.Id} had units on for their minimum run but too little secondary effluent to feed them"));
-                choice = choice with { FlowM3 = pool };
-            }
+            var choice = StageUnitRules.Choose(_state, _order, stage, _t, (want - product) / r, (low - product) / r, Math.Min((high - product) / r, pool),
+                high - product);
             StageUnitRules.Record(_state, stage, _t, choice);
             _pool[stage.Plant] -= choice.FlowM3;
             product += choice.FlowM3 * r;
         }
         return product;
+    }
+
+    // The least volume the operator leaves in a tank: its minimum plus what it will lose by the end of the
+    // horizon, so losses alone never take it below the minimum when no water comes in later.
+    private double Floor(Tank tank)
+    {
+        var keep = PeriodRequests.Keep(tank, Hours);
+        var periodsLeft = _state.Case.PeriodCount - 1 - _t;
+        return keep >= 1 ? tank.MinM3 : Math.Min(tank.MinM3 / Math.Pow(keep, periodsLeft), (tank.MinM3 + tank.MaxM3) / 2);
     }
 
     // Room a receiving tank has, counting on it passing on what was asked of it this period.

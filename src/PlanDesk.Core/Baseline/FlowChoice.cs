@@ -23,7 +23,9 @@ internal static class FlowChoices
     public static FlowChoice Nearest(double target, double low, double high, int fewestUnits, int mostUnits,
         double unitLeastM3, double unitMostM3, double capacityM3 = double.PositiveInfinity, bool roundUp = false)
     {
+        // The most acceptable flow is physical (water there is, room there is); the least is a wish that yields to it.
         high = Math.Max(high, 0);
+        low = Math.Min(low, high);
         var best = default(FlowChoice?);
         var bestScore = (Outside: double.MaxValue, Below: 1, Distance: double.MaxValue);
         for (var n = fewestUnits; n <= Math.Max(fewestUnits, mostUnits); n++)
