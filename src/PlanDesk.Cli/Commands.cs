@@ -8,5 +8,6 @@ internal static class Commands
     public static IEnumerable<Command> All() =>
     [
         ValidateCommand.Create(),
+        CheckCommand.Create(),
     ];
 }

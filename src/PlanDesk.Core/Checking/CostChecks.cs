@@ -5,8 +5,16 @@ namespace PlanDesk.Core.Checking;
 /// <summary>The plan's stated cost, component by component, against the checker's own accounting.</summary>
 internal static class CostChecks
 {
+    /// <summary>Method of a plan changed by hand: its stated cost is not compared, since nobody restates costs
+    /// after moving a pump hour; the checker's own cost stands instead.</summary>
+    public const string EditedMethod = "edited";
+
     public static void Check(Findings findings, Plan plan, CostBreakdown recomputed)
     {
+        if (plan.Method == EditedMethod)
+        {
+            return;
+        }
         var currency = findings.Case.Network.Currency;
         var stated = plan.Costs;
         var components = new (string Name, double Stated, double Recomputed)[]

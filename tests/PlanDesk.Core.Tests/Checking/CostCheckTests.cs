@@ -46,6 +46,18 @@ public class CostCheckTests
     }
 
     [Fact]
+    public void HandEditedPlanIsNotHeldToItsStatedCost()
+    {
+        var plan = RuleBasedBaseline.Build(_case);
+        var edited = plan with { Method = "edited", Costs = plan.Costs with { Chemicals = 0 } };
+
+        var report = PlanChecker.Check(_case, edited);
+
+        Assert.Empty(report.Violations);
+        Assert.Equal(plan.Costs.Chemicals, report.RecomputedCosts!.Chemicals, 9);
+    }
+
+    [Fact]
     public void DemandChargeBillsTheRiseOfThePeakAboveTheMonthToDatePeak()
     {
         var plan = RuleBasedBaseline.Build(_case);
