@@ -1,3 +1,4 @@
+using PlanDesk.Core.Model;
 using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Checking;
 using PlanDesk.Core.Plans;
@@ -8,7 +9,7 @@ namespace PlanDesk.Core.Tests.Checking;
 /// <summary>The plan's stated cost against the checker's own accounting, and that accounting against hand-worked formulas.</summary>
 public class CostCheckTests
 {
-    private readonly Model.PlanningCase _case = SmallNetwork.Case();
+    private readonly PlanningCase _case = SmallNetwork.Case();
 
     [Fact]
     public void MisstatedCostComponentIsACostMismatchNamingTheComponent()

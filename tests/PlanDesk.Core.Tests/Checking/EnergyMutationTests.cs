@@ -1,3 +1,4 @@
+using PlanDesk.Core.Model;
 using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Checking;
 using PlanDesk.Core.Plans;
@@ -8,7 +9,7 @@ namespace PlanDesk.Core.Tests.Checking;
 /// <summary>Engine, gas holder and electricity balance, broken one way at a time.</summary>
 public class EnergyMutationTests
 {
-    private readonly Model.PlanningCase _case = SmallNetwork.Case();
+    private readonly PlanningCase _case = SmallNetwork.Case();
     private static readonly string Plant = SmallNetwork.Norwick.Value;
 
     private Plan Valid() => PlanRestate.Copy(RuleBasedBaseline.Build(_case));

@@ -1,3 +1,4 @@
+using PlanDesk.Core.Model;
 using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Checking;
 using PlanDesk.Core.Plans;
@@ -12,7 +13,7 @@ namespace PlanDesk.Core.Tests.Checking;
 /// </summary>
 public class FlowMutationTests
 {
-    private readonly Model.PlanningCase _case = SmallNetwork.Case();
+    private readonly PlanningCase _case = SmallNetwork.Case();
 
     private Plan Valid()
     {
