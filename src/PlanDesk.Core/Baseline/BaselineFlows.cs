@@ -19,6 +19,8 @@ internal sealed class BaselineFlows
     private readonly Dictionary<TankId, double> _inflow = [];
     private readonly Dictionary<CustomerId, double> _carry = [];
     private readonly Dictionary<CustomerId, double> _blendSlack = [];
+    private readonly Dictionary<PlantId, double> _reserved = [];
+    private readonly Dictionary<StageId, double> _share = [];
 
     private BaselineFlows(BaselineState state, TankOrder order, int t)
     {
@@ -27,7 +29,30 @@ internal sealed class BaselineFlows
         _t = t;
         Treat();
         _requests = PeriodRequests.Compute(state, order, t);
+        ShareSecondaryEffluent();
     }
+
+    // When a plant's stages ask for more secondary effluent than it treats, each gets the same share of its
+    // request, but never less than its essential feed (draws it must serve, units it must keep on).
+    private void ShareSecondaryEffluent()
+    {
+        foreach (var plant in Network.Plants)
+        {
+            var stages = plant.Stages.Where(s => s.FeedTank is null && _order.Uses(s)).ToList();
+            var asked = stages.Sum(s => _requests.StageFeed.GetValueOrDefault(s.Id));
+            var scale = asked > _pool[plant.Id] ? _pool[plant.Id] / asked : 1;
+            foreach (var stage in stages)
+            {
+                _share[stage.Id] = Math.Max(_requests.EssentialFeed.GetValueOrDefault(stage.Id), _requests.StageFeed.GetValueOrDefault(stage.Id) * scale);
+                _reserved[plant.Id] = _reserved.GetValueOrDefault(plant.Id) + _share[stage.Id];
+            }
+        }
+    }
+
+    // Secondary effluent a stage may take: what is left once the shares of the plant's other stages, not yet
+    // served this period, are set aside.
+    private double PoolFor(Stage stage, Dictionary<PlantId, double> pool) =>
+        Math.Max(0, pool[stage.Plant] - (_reserved.GetValueOrDefault(stage.Plant) - _share.GetValueOrDefault(stage.Id)));
 
     private Network Network => _state.Case.Network;
     private double Hours => _state.Case.PeriodHours;
@@ -67,7 +92,7 @@ internal sealed class BaselineFlows
         var roomIfServed = tank.MaxM3 - start - fixedIn + _requests.Outflow[tank.Id];
         foreach (var stage in ownStages)
         {
-            var feed = Math.Min(StageUnitRules.MostFeedM3(_state, _order, stage, _t, roomIfServed - ownMostProduct), poolLeft[stage.Plant]);
+            var feed = Math.Min(StageUnitRules.MostFeedM3(_state, _order, stage, _t, roomIfServed - ownMostProduct), PoolFor(stage, poolLeft));
             poolLeft[stage.Plant] -= feed;
             ownMostProduct += feed * stage.RecoveryFraction;
         }
@@ -77,7 +102,7 @@ internal sealed class BaselineFlows
         var committed = Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s))
             .Sum(s => StageUnitRules.Allowed(_state, _order, s, _t).Fewest * s.UnitMinFlowM3PerHour * Hours);
         var outM3 = Deliver(tank, Math.Max(0, available - committed));
-        outM3 += PassDownstream(tank, available - outM3);
+        outM3 += PassDownstream(tank, available - outM3, start + fixedIn - floor - outM3);
         var product = Produce(tank, ownStages, start, fixedIn, outM3, floor);
         var volume = start + fixedIn + product - outM3;
         _state.Volume[tank.Id][_t] = volume;
@@ -127,14 +152,15 @@ internal sealed class BaselineFlows
 
     // Stages fed from this tank, then transfers to downstream tanks, get what they asked for, as far as the
     // tank has water and the receiving tank has room (stages first: units kept on for their minimum run must be fed).
-    private double PassDownstream(Tank tank, double available)
+    private double PassDownstream(Tank tank, double available, double storedM3)
     {
         var outM3 = 0.0;
         foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s)))
         {
             var room = Room(Network.Tank(stage.ProductTank));
             var high = Math.Min(available - outM3, room / stage.RecoveryFraction);
-            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high, room, available - outM3);
+            // A unit is started only on water already stored: the tank's own stages may not keep up for the whole run.
+            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high, room, storedM3 - outM3);
             StageUnitRules.Record(_state, stage, _t, choice);
             _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
             outM3 += choice.FlowM3;
@@ -161,11 +187,12 @@ internal sealed class BaselineFlows
         foreach (var stage in stages)
         {
             var r = stage.RecoveryFraction;
-            var pool = _pool[stage.Plant];
+            var pool = PoolFor(stage, _pool);
             var choice = StageUnitRules.Choose(_state, _order, stage, _t, (want - product) / r, (low - product) / r, Math.Min((high - product) / r, pool),
                 high - product);
             StageUnitRules.Record(_state, stage, _t, choice);
             _pool[stage.Plant] -= choice.FlowM3;
+            _reserved[stage.Plant] -= _share.GetValueOrDefault(stage.Id);
             product += choice.FlowM3 * r;
         }
         return product;

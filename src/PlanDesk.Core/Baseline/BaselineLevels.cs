@@ -5,8 +5,8 @@ namespace PlanDesk.Core.Baseline;
 /// <summary>
 /// The treatment level an operator sets each day: the standard level, unless its effluent breaks a
 /// concentration limit (then the first level in the plant's list that does not), or the day's forecast
-/// load would break a daily cap or use up the month's remaining allowance (then the first allowed level
-/// that keeps within both; failing that, the allowed level with the smallest excess).
+/// load would break a daily cap or take more than the day's even share of the month's remaining allowance
+/// (then the first allowed level that keeps within both; failing that, the allowed level with the smallest excess).
 /// </summary>
 internal static class BaselineLevels
 {
@@ -38,8 +38,14 @@ internal static class BaselineLevels
             double Over(TreatmentLevel l) =>
                 Excess(LoadN(l), permit.DailyTotalNitrogenKg) + Excess(monthN[m] + LoadN(l), permit.MonthlyTotalNitrogenKg)
                 + Excess(LoadP(l), permit.DailyTotalPhosphorusKg) + Excess(monthP[m] + LoadP(l), permit.MonthlyTotalPhosphorusKg);
+            // The month's remaining allowance is spread evenly over the days left in the calendar month.
+            var daysLeft = day.Date.Calendar.GetDaysInMonth(day.Date.Year, day.Date.Month) - day.Date.Day + 1;
+            bool Fits(TreatmentLevel l) =>
+                Excess(LoadN(l), permit.DailyTotalNitrogenKg) + Excess(LoadP(l), permit.DailyTotalPhosphorusKg) <= 0
+                && Excess(LoadN(l), Share(permit.MonthlyTotalNitrogenKg, monthN[m], daysLeft)) <= 0
+                && Excess(LoadP(l), Share(permit.MonthlyTotalPhosphorusKg, monthP[m], daysLeft)) <= 0;
 
-            var chosen = Over(usual) <= 0 ? usual : allowed.FirstOrDefault(l => Over(l) <= 0) ?? allowed.MinBy(Over)!;
+            var chosen = Fits(usual) ? usual : allowed.FirstOrDefault(Fits) ?? allowed.MinBy(Over)!;
             levels[day.Index] = chosen.Id;
             monthN[m] += LoadN(chosen);
             monthP[m] += LoadP(chosen);
@@ -51,6 +57,9 @@ internal static class BaselineLevels
     public static bool Meets(TreatmentLevel level, Permit permit) =>
         Excess(level.EffluentTotalNitrogenMgPerL, permit.MaxTotalNitrogenMgPerL) <= 0
         && Excess(level.EffluentTotalPhosphorusMgPerL, permit.MaxTotalPhosphorusMgPerL) <= 0;
+
+    private static double? Share(double? monthlyCapKg, double usedKg, int daysLeft) =>
+        monthlyCapKg is { } cap ? (cap - usedKg) / daysLeft : null;
 
     private static double Excess(double value, double? limit) => limit is { } max ? Math.Max(0, value - max) : 0;
 }

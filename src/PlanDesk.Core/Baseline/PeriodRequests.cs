@@ -12,6 +12,9 @@ internal sealed class PeriodRequests
     public Dictionary<CustomerId, double> Customer { get; } = [];
     public Dictionary<PipelineId, double> Pipeline { get; } = [];
     public Dictionary<StageId, double> StageFeed { get; } = [];
+    /// <summary>The part of a stage's feed its tank needs to serve this period's draws without falling below its
+    /// minimum; secondary effluent goes to these parts first, refilling comes after.</summary>
+    public Dictionary<StageId, double> EssentialFeed { get; } = [];
     /// <summary>Everything asked of a tank: deliveries, transfers and stage feeds drawn from it, m3.</summary>
     public Dictionary<TankId, double> Outflow { get; } = [];
 
@@ -28,10 +31,9 @@ internal sealed class PeriodRequests
             requests.Customer[customer.Id] = CustomerWants(state, customer, t);
             SplitOverPipelines(state, order, customer, requests, t);
         }
-        var pool = network.Plants.ToDictionary(p => p.Id, p => state.Treated[p.Id][t]);
         foreach (var tank in order.UpstreamFirst.Reverse())
         {
-            AskSources(state, order, tank, requests, pool, t);
+            AskSources(state, order, tank, requests, t);
         }
         return requests;
     }
@@ -108,28 +110,27 @@ internal sealed class PeriodRequests
         }
     }
 
-    private static void AskSources(BaselineState state, TankOrder order, Tank tank, PeriodRequests requests, Dictionary<PlantId, double> pool, int t)
+    private static void AskSources(BaselineState state, TankOrder order, Tank tank, PeriodRequests requests, int t)
     {
         var network = state.Case.Network;
         var start = state.VolumeBefore(tank, t) * Keep(tank, state.Case.PeriodHours);
         var need = requests.Outflow[tank.Id] + tank.InitialM3 - start;
+        var essential = Math.Max(0, requests.Outflow[tank.Id] + tank.MinM3 - start);
         foreach (var stage in network.Stages.Where(s => s.ProductTank == tank.Id && order.Uses(s)))
         {
             var mostFeed = StageUnitRules.MostFeedM3(state, order, stage, t);
-            if (stage.FeedTank is null)
-            {
-                mostFeed = Math.Min(mostFeed, pool[stage.Plant]);
-            }
             var feed = Math.Max(0, Math.Min(need / stage.RecoveryFraction, mostFeed));
             requests.StageFeed[stage.Id] = feed;
+            // A running unit needs at least its least flow; units kept on for their minimum run need it whatever the tank needs.
+            var least = stage.UnitMinFlowM3PerHour * state.Case.PeriodHours;
+            var committed = StageUnitRules.Allowed(state, order, stage, t).Fewest * least;
+            var essentialFeed = essential > 0 ? Math.Min(mostFeed, Math.Max(essential / stage.RecoveryFraction, least)) : 0;
+            requests.EssentialFeed[stage.Id] = Math.Max(committed, essentialFeed);
+            essential -= essentialFeed * stage.RecoveryFraction;
             need -= feed * stage.RecoveryFraction;
             if (stage.FeedTank is { } from)
             {
                 requests.Outflow[from] += feed;
-            }
-            else
-            {
-                pool[stage.Plant] -= feed;
             }
         }
         foreach (var pipeline in network.Pipelines.Where(l => l.To.Tank == tank.Id && order.Uses(l)))
