@@ -98,11 +98,7 @@ internal sealed class BaselineFlows
         }
         var floor = Floor(tank);
         var available = Math.Max(0, start + fixedIn + ownMostProduct - floor);
-        // Units kept on for their minimum run draw their least flow whatever customers take.
-        var committed = Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s))
-            .Sum(s => StageUnitRules.Allowed(_state, _order, s, _t).Fewest * s.UnitMinFlowM3PerHour * Hours);
-        var outM3 = Deliver(tank, Math.Max(0, available - committed));
-        outM3 += PassDownstream(tank, available - outM3, start + fixedIn - floor - outM3);
+        var outM3 = ServeOutflows(tank, available, start + fixedIn - floor);
         var product = Produce(tank, ownStages, start, fixedIn, outM3, floor);
         var volume = start + fixedIn + product - outM3;
         _state.Volume[tank.Id][_t] = volume;
@@ -115,65 +111,89 @@ internal sealed class BaselineFlows
         }
     }
 
-    // Customers by contract priority; each pipeline is asked for its share plus what the customer's other
-    // pipelines could not bring, never more than the customer may take or its blend limit allows.
-    private double Deliver(Tank tank, double available)
+    // What the tank gives, by the contract priority of the customers it serves: its own customers, stages it
+    // feeds and transfers it makes (these by the best priority downstream). Units kept on for their minimum run
+    // have their least flow set aside first.
+    private double ServeOutflows(Tank tank, double available, double storedM3)
     {
+        var committed = Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s))
+            .ToDictionary(s => s.Id, s => StageUnitRules.Allowed(_state, _order, s, _t).Fewest * s.UnitMinFlowM3PerHour * Hours);
+        var committedLeft = committed.Values.Sum();
+        var claims = Network.Pipelines.Where(l => l.From == tank.Id && _order.Uses(l))
+            .Select(l => l.To.Customer is { } c
+                ? (Priority: Network.Customer(c).Priority, Kind: 0, Line: (Pipeline?)l, Stage: (Stage?)null)
+                : (Priority: _order.ServedPriority[l.To.Tank!.Value], Kind: 2, Line: (Pipeline?)l, Stage: null))
+            .Concat(Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s))
+                .Select(s => (Priority: _order.ServedPriority[s.ProductTank], Kind: 1, Line: (Pipeline?)null, Stage: (Stage?)s)))
+            .OrderBy(c => c.Priority).ThenBy(c => c.Kind)
+            .ToList();
         var outM3 = 0.0;
-        var lines = Network.Pipelines.Where(l => l.From == tank.Id && l.To.Customer is not null && _order.Uses(l))
-            .OrderBy(l => Network.Customer(l.To.Customer!.Value).Priority);
-        foreach (var line in lines)
+        foreach (var claim in claims)
         {
-            var customer = Network.Customer(line.To.Customer!.Value);
-            var sent = _state.Delivered[customer.Id][_t];
-            var wants = Math.Max(0, _requests.Customer[customer.Id] - sent);
-            var mayTake = customer.Demand is DailyDemand
-                ? Math.Min(PeriodRequests.DayRemainingM3(_state, customer, _t) - sent, _state.Case.MaxDeliveryM3[customer.Id][_t] - sent)
-                : wants;
-            var high = Math.Min(available - outM3, Math.Max(0, mayTake));
-            double? value = customer.Blend is { } blend ? PeriodRequests.BlendValue(Network, line, blend.Parameter) : null;
-            if (customer.Blend is { } limit && value > limit.Max)
+            if (claim.Stage is { } stage)
             {
-                high = Math.Min(high, _blendSlack.GetValueOrDefault(customer.Id) / (value.Value - limit.Max));
+                committedLeft -= committed[stage.Id];
+                outM3 += FeedStage(stage, available - outM3 - committedLeft, storedM3 - outM3 - committedLeft);
             }
-            var asked = _requests.Pipeline.GetValueOrDefault(line.Id);
-            var target = Math.Min(asked + _carry.GetValueOrDefault(customer.Id), wants);
-            var flow = Carry(line, target, high, roundUp: customer.Demand is DailyDemand);
-            _carry[customer.Id] = Math.Max(0, _carry.GetValueOrDefault(customer.Id) + asked - flow);
-            _state.Delivered[customer.Id][_t] += flow;
-            if (customer.Blend is { } b && value is { } v)
+            else if (claim.Line!.To.Customer is not null)
             {
-                _blendSlack[customer.Id] = _blendSlack.GetValueOrDefault(customer.Id) + flow * (b.Max - v);
+                outM3 += Deliver(claim.Line, available - outM3 - committedLeft);
             }
-            outM3 += flow;
+            else
+            {
+                outM3 += Transfer(claim.Line, available - outM3 - committedLeft);
+            }
         }
         return outM3;
     }
 
-    // Stages fed from this tank, then transfers to downstream tanks, get what they asked for, as far as the
-    // tank has water and the receiving tank has room (stages first: units kept on for their minimum run must be fed).
-    private double PassDownstream(Tank tank, double available, double storedM3)
+    // A customer's pipeline is asked for its share plus what the customer's other pipelines could not bring,
+    // never more than the customer may take or its blend limit allows.
+    private double Deliver(Pipeline line, double available)
     {
-        var outM3 = 0.0;
-        foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank.Id && _order.Uses(s)))
+        var customer = Network.Customer(line.To.Customer!.Value);
+        var sent = _state.Delivered[customer.Id][_t];
+        var wants = Math.Max(0, _requests.Customer[customer.Id] - sent);
+        var mayTake = customer.Demand is DailyDemand
+            ? Math.Min(PeriodRequests.DayRemainingM3(_state, customer, _t) - sent, _state.Case.MaxDeliveryM3[customer.Id][_t] - sent)
+            : wants;
+        var high = Math.Min(available, Math.Max(0, mayTake));
+        double? value = customer.Blend is { } blend ? PeriodRequests.BlendValue(Network, line, blend.Parameter) : null;
+        if (customer.Blend is { } limit && value > limit.Max)
         {
-            var room = Room(Network.Tank(stage.ProductTank));
-            var high = Math.Min(available - outM3, room / stage.RecoveryFraction);
-            // A unit is started only on water already stored: the tank's own stages may not keep up for the whole run.
-            var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high, room, storedM3 - outM3);
-            StageUnitRules.Record(_state, stage, _t, choice);
-            _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
-            outM3 += choice.FlowM3;
+            high = Math.Min(high, _blendSlack.GetValueOrDefault(customer.Id) / (value.Value - limit.Max));
         }
-        foreach (var line in Network.Pipelines.Where(l => l.From == tank.Id && l.To.Tank is not null && _order.Uses(l)))
+        var asked = _requests.Pipeline.GetValueOrDefault(line.Id);
+        var target = Math.Min(asked + _carry.GetValueOrDefault(customer.Id), wants);
+        var flow = Carry(line, target, high, roundUp: customer.Demand is DailyDemand);
+        _carry[customer.Id] = Math.Max(0, _carry.GetValueOrDefault(customer.Id) + asked - flow);
+        _state.Delivered[customer.Id][_t] += flow;
+        if (customer.Blend is { } b && value is { } v)
         {
-            var to = line.To.Tank!.Value;
-            var high = Math.Min(available - outM3, Room(Network.Tank(to)));
-            var flow = Carry(line, _requests.Pipeline.GetValueOrDefault(line.Id), high, roundUp: false);
-            _inflow[to] = _inflow.GetValueOrDefault(to) + flow;
-            outM3 += flow;
+            _blendSlack[customer.Id] = _blendSlack.GetValueOrDefault(customer.Id) + flow * (b.Max - v);
         }
-        return outM3;
+        return flow;
+    }
+
+    // A stage fed from this tank gets what it asked for, as far as the tank has water and its product tank has
+    // room; a unit is started only on water already stored, since the tank's own stages may not keep up for the whole run.
+    private double FeedStage(Stage stage, double available, double storedM3)
+    {
+        var room = Room(Network.Tank(stage.ProductTank));
+        var high = Math.Min(available, room / stage.RecoveryFraction);
+        var choice = StageUnitRules.Choose(_state, _order, stage, _t, _requests.StageFeed.GetValueOrDefault(stage.Id), 0, high, room, storedM3);
+        StageUnitRules.Record(_state, stage, _t, choice);
+        _inflow[stage.ProductTank] = _inflow.GetValueOrDefault(stage.ProductTank) + choice.FlowM3 * stage.RecoveryFraction;
+        return choice.FlowM3;
+    }
+
+    // A transfer to a downstream tank gets what that tank asked for, as far as there is water and room.
+    private double Transfer(Pipeline line, double available)
+    {
+        var to = line.To.Tank!.Value;
+        var flow = Carry(line, _requests.Pipeline.GetValueOrDefault(line.Id), Math.Min(available, Room(Network.Tank(to))), roundUp: false);
+        _inflow[to] = _inflow.GetValueOrDefault(to) + flow;
+        return flow;
     }
 
     // The tank's own stages refill it towards its start level: at least enough to stay above the minimum,

@@ -10,12 +10,26 @@ namespace PlanDesk.Core.Baseline;
 /// </summary>
 internal sealed class TankOrder
 {
-    private TankOrder(IReadOnlyList<Tank> upstreamFirst, IReadOnlySet<PipelineId> unusedPipelines, IReadOnlySet<StageId> unusedStages)
+    private TankOrder(Network network, IReadOnlyList<Tank> upstreamFirst, IReadOnlySet<PipelineId> unusedPipelines, IReadOnlySet<StageId> unusedStages)
     {
         UpstreamFirst = upstreamFirst;
         UnusedPipelines = unusedPipelines;
         UnusedStages = unusedStages;
+        var served = new Dictionary<TankId, int>();
+        foreach (var tank in upstreamFirst.Reverse())
+        {
+            var customers = network.Pipelines.Where(l => l.From == tank.Id && l.To.Customer is not null && Uses(l))
+                .Select(l => network.Customer(l.To.Customer!.Value).Priority);
+            var tanks = network.Pipelines.Where(l => l.From == tank.Id && l.To.Tank is not null && Uses(l)).Select(l => served[l.To.Tank!.Value])
+                .Concat(network.Stages.Where(s => s.FeedTank == tank.Id && Uses(s)).Select(s => served[s.ProductTank]));
+            served[tank.Id] = customers.Concat(tanks).DefaultIfEmpty(int.MaxValue).Min();
+        }
+        ServedPriority = served;
     }
+
+    /// <summary>The highest contract priority (lowest number) among the customers a tank's water reaches,
+    /// directly or through other tanks; int.MaxValue when it reaches none.</summary>
+    public IReadOnlyDictionary<TankId, int> ServedPriority { get; }
 
     public IReadOnlyList<Tank> UpstreamFirst { get; }
     public IReadOnlySet<PipelineId> UnusedPipelines { get; }
@@ -67,7 +81,7 @@ internal sealed class TankOrder
                 waiting[to]--;
             }
         }
-        return new TankOrder(order, unusedPipelines, unusedStages);
+        return new TankOrder(network, order, unusedPipelines, unusedStages);
     }
 
     private static ClassId Destination(Network network, Pipeline pipeline) =>
