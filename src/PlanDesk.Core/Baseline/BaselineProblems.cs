@@ -47,12 +47,12 @@ internal static class BaselineProblems
                     $"plant {plant.Name} sends {Findings.Q(DaySum(a.OutfallExcessM3, day))} m3 more to its outfall than its permit's maximum flow");
                 if (!BaselineLevels.Meets(plant.Level(p.LevelByDay[day.Index]), plant.Permit))
                 {
-                    Add(ViolationKind.ConcentrationLimit, plant.Id.Value, day.Index, 1, "level",
+                    Add(ProblemKinds.LevelLimit, plant.Id.Value, day.Index, 1, "level",
                         $"no treatment level of plant {plant.Name} meets its permit's concentration limits; it runs {p.LevelByDay[day.Index]}");
                 }
             }
-            AddLoadExcess(Add, planningCase, plant, a.TotalNitrogen, "total N");
-            AddLoadExcess(Add, planningCase, plant, a.TotalPhosphorus, "total P");
+            AddLoadExcess(Add, planningCase, plant, a.TotalNitrogen, "total N", ProblemKinds.NitrogenDailyExcess, ProblemKinds.NitrogenMonthlyExcess);
+            AddLoadExcess(Add, planningCase, plant, a.TotalPhosphorus, "total P", ProblemKinds.PhosphorusDailyExcess, ProblemKinds.PhosphorusMonthlyExcess);
         }
         foreach (var (tank, deficit) in accounts.TankEndDeficitM3)
         {
@@ -62,23 +62,24 @@ internal static class BaselineProblems
         foreach (var group in issues.GroupBy(i => (i.Kind, i.Where, Day: planningCase.Horizon.Periods[i.Period].Day)))
         {
             var first = group.First();
-            Add(group.Key.Kind, group.Key.Where, group.Key.Day, group.Sum(i => i.Amount), first.Unit,
+            Add(ProblemKinds.ForViolation(group.Key.Kind), group.Key.Where, group.Key.Day, group.Sum(i => i.Amount), first.Unit,
                 $"{first.Message} ({group.Count()} period{(group.Count() == 1 ? "" : "s")})");
         }
         return problems;
     }
 
-    private static void AddLoadExcess(Action<string, string, int, double, string, string> add, PlanningCase planningCase, Plant plant, LoadAccount load, string substance)
+    private static void AddLoadExcess(Action<string, string, int, double, string, string> add, PlanningCase planningCase, Plant plant, LoadAccount load,
+        string substance, string dailyKind, string monthlyKind)
     {
         for (var d = 0; d < load.DailyExcessKg.Length; d++)
         {
-            add(ProblemKinds.PermitExcess, plant.Id.Value, d, load.DailyExcessKg[d], "kg",
+            add(dailyKind, plant.Id.Value, d, load.DailyExcessKg[d], "kg",
                 $"plant {plant.Name} discharges {Findings.Q(load.DailyExcessKg[d])} kg of {substance} above its daily cap; no allowed treatment level keeps the day within every cap");
         }
         foreach (var (excess, month) in load.MonthlyExcessKg.Select((kg, m) => (kg, m)))
         {
             var firstDay = planningCase.Horizon.Days.First(d => planningCase.BillingMonth[d.FirstPeriod] == month);
-            add(ProblemKinds.PermitExcess, plant.Id.Value, firstDay.Index, excess, "kg",
+            add(monthlyKind, plant.Id.Value, firstDay.Index, excess, "kg",
                 $"plant {plant.Name} goes {Findings.Q(excess)} kg of {substance} over its monthly cap for {firstDay.Date:yyyy-MM}");
         }
     }

@@ -78,6 +78,9 @@ public static class PlanCosting
         var outfall = new double[periods];
         var outfallExcess = new double[periods];
         var bearing = new double[periods];
+        // Rejects carry the plant's effluent nutrients when the stage takes the plant's own water: secondary effluent
+        // or a tank at the plant. A stage fed from elsewhere (a regional reservoir) is left out, as in the MILP.
+        var rejecting = plant.Stages.Where(s => s.FeedTank is not { } feed || planningCase.Network.Tank(feed).Plant == plant.Id).ToList();
         for (var t = 0; t < periods; t++)
         {
             aeration[t] = LevelOn(planningCase, plant, p, t).AerationEnergyKWhPerM3 * p.TreatedM3[t];
@@ -87,7 +90,7 @@ public static class PlanCosting
             var rejects = plant.Stages.Sum(s => (1 - s.RecoveryFraction) * index.Stages[s.Id].FeedM3[t]);
             outfall[t] = p.SecondaryToOutfallM3[t] + rejects + p.BypassM3[t];
             outfallExcess[t] = plant.Permit.MaxOutfallM3PerHour is { } max ? Math.Max(0, outfall[t] - max * hours) : 0;
-            bearing[t] = p.SecondaryToOutfallM3[t] + plant.Stages.Sum(s => s.NutrientRejectionFraction * index.Stages[s.Id].FeedM3[t]);
+            bearing[t] = p.SecondaryToOutfallM3[t] + rejecting.Sum(s => s.NutrientRejectionFraction * index.Stages[s.Id].FeedM3[t]);
         }
 
         var permit = plant.Permit;

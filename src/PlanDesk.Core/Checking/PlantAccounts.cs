@@ -20,8 +20,9 @@ public sealed record PlantAccounts
     public required double[] OutfallM3 { get; init; }
     /// <summary>Outfall volume above the permit's maximum outfall flow, m3 (0 without a limit).</summary>
     public required double[] OutfallExcessM3 { get; init; }
-    /// <summary>Outfall volume that carries the secondary effluent's nutrients: secondary to the outfall +
-    /// each stage's nutrient rejection fraction × feed, m3 (bypass is counted at raw concentration).</summary>
+    /// <summary>Outfall volume that carries the secondary effluent's nutrients: secondary to the outfall + the
+    /// nutrient rejection fraction × feed of each stage fed from the secondary or a tank at the plant, m3
+    /// (bypass is counted at raw concentration).</summary>
     public required double[] NitrogenBearingM3 { get; init; }
     public required LoadAccount TotalNitrogen { get; init; }
     public required LoadAccount TotalPhosphorus { get; init; }

@@ -27,8 +27,7 @@ public class BaselinePropertyTests
         var plan = RuleBasedBaseline.Build(created.Case!);
         var report = PlanChecker.Check(created.Case!, plan);
 
-        var named = plan.Problems.Select(p => (p.Kind, p.Where, p.Day)).ToHashSet();
-        var unnamed = report.Violations.Where(v => !named.Contains((ProblemKinds.ForViolation(v.Kind), v.Where, v.Day))).Select(v => v.Message).ToList();
+        var unnamed = report.Violations.Where(v => !ProblemKinds.Names(plan.Problems, v)).Select(v => v.Message).ToList();
         Assert.Empty(unnamed);
         Assert.NotNull(report.RecomputedCosts);
     }

@@ -86,7 +86,7 @@ public class BaselineRuleTests
         var plan = RuleBasedBaseline.Build(planningCase);
 
         Assert.Equal("tight", plan.Plants[0].LevelByDay[0].Value);
-        Assert.DoesNotContain(plan.Problems, p => p.Kind == ProblemKinds.PermitExcess);
+        Assert.DoesNotContain(plan.Problems, p => p.Kind == ProblemKinds.NitrogenDailyExcess);
     }
 
     [Fact]
@@ -96,7 +96,7 @@ public class BaselineRuleTests
 
         var plan = RuleBasedBaseline.Build(planningCase);
 
-        var excess = Assert.Single(plan.Problems, p => p.Kind == ProblemKinds.PermitExcess);
+        var excess = Assert.Single(plan.Problems, p => p.Kind == ProblemKinds.NitrogenDailyExcess);
         Assert.Equal((Norwick.Value, Start), (excess.Where, excess.Day));
         Assert.Equal("tight", plan.Plants[0].LevelByDay[0].Value);
         var violation = Assert.Single(PlanChecker.Check(planningCase, plan).Violations);
