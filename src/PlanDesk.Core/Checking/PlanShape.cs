@@ -67,6 +67,10 @@ internal static class PlanShape
         {
             findings.Overall(ViolationKind.MissingEntry, "plan", 1, "entries", null, "the plan has no costs; give costs with every component");
         }
+        if (plan.Solve is null)
+        {
+            findings.Overall(ViolationKind.MissingEntry, "plan", 1, "entries", null, "the plan has no solve information; give at least its status");
+        }
         return findings.Items.Count == before;
     }
 

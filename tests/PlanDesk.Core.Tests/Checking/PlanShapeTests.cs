@@ -107,6 +107,20 @@ public class PlanShapeTests
     }
 
     [Fact]
+    public void NullListsAndSectionsAreViolationsNotExceptions()
+    {
+        // What a JSON file with "plants": null, "tanks": null, "solve": null and "costs": null deserialises to.
+        var plan = Valid() with { Plants = null!, Tanks = null!, Solve = null!, Costs = null! };
+
+        var report = PlanChecker.Check(_case, plan);
+
+        Assert.Contains(report.Violations, v => v.Kind == ViolationKind.MissingEntry && v.Where == SmallNetwork.Norwick.Value);
+        Assert.Contains(report.Violations, v => v.Kind == ViolationKind.MissingEntry && v.Where == SmallNetwork.Reservoir.Value);
+        Assert.Equal(2, report.Violations.Count(v => v.Where == "plan"));
+        Assert.Null(report.RecomputedCosts);
+    }
+
+    [Fact]
     public void PlanWithoutDecisionsIsANoPlanViolation()
     {
         var plan = Valid() with { Solve = new SolveInfo { Status = SolveStatus.NoPlan }, Plants = [], Stages = [] };
