@@ -22,12 +22,6 @@ public class FlowMutationTests
         return PlanRestate.Copy(plan);
     }
 
-    private static void AssertOnly(CheckReport report, string kind, string where, int period)
-    {
-        var found = Assert.Single(report.Violations);
-        Assert.Equal((kind, where, (int?)period), (found.Kind, found.Where, found.Period));
-    }
-
     [Fact]
     public void FeedAboveTheRunningUnitsCapacityIsAStageFlowViolation()
     {
@@ -38,7 +32,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
-        AssertOnly(report, ViolationKind.StageFlowMax, Filter.Value, 10);
+        ExpectViolation.Only(report, ViolationKind.StageFlowMax, Filter.Value, 10);
         Assert.Equal(30, report.Violations[0].Amount, 6);
     }
 
@@ -50,7 +44,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
-        AssertOnly(report, ViolationKind.PipelineCapacity, ToReservoir.Value, 5);
+        ExpectViolation.Only(report, ViolationKind.PipelineCapacity, ToReservoir.Value, 5);
         Assert.Equal(50, report.Violations[0].Amount, 6);
         Assert.Equal(200, report.Violations[0].Limit);
     }
@@ -67,7 +61,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Costs(_case, plan));
 
-        AssertOnly(report, ViolationKind.TankBalance, ClassATank.Value, 7);
+        ExpectViolation.Only(report, ViolationKind.TankBalance, ClassATank.Value, 7);
         Assert.Equal(40, report.Violations[0].Amount, 6);
     }
 
@@ -99,7 +93,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
-        AssertOnly(report, ViolationKind.ClassRule, WrongClassToOrchard.Value, 9);
+        ExpectViolation.Only(report, ViolationKind.ClassRule, WrongClassToOrchard.Value, 9);
         Assert.Equal(60, report.Violations[0].Amount, 6);
     }
 
@@ -113,7 +107,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Costs(_case, plan));
 
-        AssertOnly(report, ViolationKind.UnitStarts, Filter.Value, 21);
+        ExpectViolation.Only(report, ViolationKind.UnitStarts, Filter.Value, 21);
     }
 
     [Fact]
@@ -127,7 +121,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
-        AssertOnly(report, ViolationKind.DeliveryWindow, Park.Value, 12);
+        ExpectViolation.Only(report, ViolationKind.DeliveryWindow, Park.Value, 12);
     }
 
     [Fact]
@@ -155,7 +149,7 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
-        AssertOnly(report, ViolationKind.PumpFlow, ToPark.Value, 22);
+        ExpectViolation.Only(report, ViolationKind.PumpFlow, ToPark.Value, 22);
         Assert.Equal(10, report.Violations[0].Amount, 6);
     }
 
@@ -169,6 +163,6 @@ public class FlowMutationTests
 
         var report = PlanChecker.Check(_case, PlanRestate.Costs(_case, plan));
 
-        AssertOnly(report, ViolationKind.DeliveryBalance, Orchard.Value, 3);
+        ExpectViolation.Only(report, ViolationKind.DeliveryBalance, Orchard.Value, 3);
     }
 }

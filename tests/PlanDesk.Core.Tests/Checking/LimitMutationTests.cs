@@ -18,12 +18,6 @@ public class LimitMutationTests
         return (planningCase, PlanRestate.Copy(plan));
     }
 
-    private static void AssertOnly(CheckReport report, string kind, string where, int period)
-    {
-        var found = Assert.Single(report.Violations);
-        Assert.Equal((kind, where, (int?)period), (found.Kind, found.Where, found.Period));
-    }
-
     [Fact]
     public void UnitRunDuringAnOutageIsAnAvailabilityViolation()
     {
@@ -35,7 +29,7 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Flows(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.UnitsAvailable, Filter.Value, 10);
+        ExpectViolation.Only(report, ViolationKind.UnitsAvailable, Filter.Value, 10);
     }
 
     [Fact]
@@ -50,7 +44,7 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Flows(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.SecondaryCapacity, Norwick.Value, 3);
+        ExpectViolation.Only(report, ViolationKind.SecondaryCapacity, Norwick.Value, 3);
         Assert.Equal(100, report.Violations[0].Amount, 6);
     }
 
@@ -62,7 +56,7 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Costs(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.SecondarySplit, Norwick.Value, 4);
+        ExpectViolation.Only(report, ViolationKind.SecondarySplit, Norwick.Value, 4);
     }
 
     [Fact]
@@ -113,7 +107,7 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Costs(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.DemandBalance, Orchard.Value, 8);
+        ExpectViolation.Only(report, ViolationKind.DemandBalance, Orchard.Value, 8);
     }
 
     [Fact]
@@ -135,7 +129,7 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Flows(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.BlendLimit, Park.Value, 22);
+        ExpectViolation.Only(report, ViolationKind.BlendLimit, Park.Value, 22);
         Assert.Equal(100, report.Violations[0].Amount, 6);
     }
 
@@ -148,6 +142,6 @@ public class LimitMutationTests
 
         var report = PlanChecker.Check(planningCase, PlanRestate.Flows(planningCase, plan));
 
-        AssertOnly(report, ViolationKind.NegativeValue, WrongClassToOrchard.Value, 2);
+        ExpectViolation.Only(report, ViolationKind.NegativeValue, WrongClassToOrchard.Value, 2);
     }
 }
