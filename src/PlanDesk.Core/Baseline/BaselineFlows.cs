@@ -5,9 +5,10 @@ namespace PlanDesk.Core.Baseline;
 
 /// <summary>
 /// One period of the operator's rules, walking the tanks upstream first: treat all influent the secondary
-/// stage can take; from each tank serve customers by contract priority, then pass on what downstream tanks
-/// and stages asked for; then run the tank's own stages on secondary effluent to bring it back towards its
-/// start level. Units and pumps keep to their flow ranges, availability and minimum run times.
+/// stage can take; from each tank serve its customers, the stages it feeds and its transfers in order of the
+/// contract priority they serve; then run the tank's own stages on secondary effluent (shared between a
+/// plant's stages) to bring it back towards its start level. Units and pumps keep to their flow ranges,
+/// availability and minimum run times.
 /// </summary>
 internal sealed class BaselineFlows
 {
