@@ -42,6 +42,15 @@ public sealed record BaselineComparison(
             baselineReport.Violations.Count);
     }
 
+    /// <summary>The summary with the baseline cost, the savings and the checker's count filled in.</summary>
+    public PlanSummary AddTo(PlanSummary summary) => summary with
+    {
+        BaselineCost = BaselineCost,
+        SavingPercent = SavingPercent,
+        OperatingSavingPercent = OperatingSavingPercent,
+        CheckViolations = CheckViolations,
+    };
+
     private static double? Saving(double baseline, double? plan) =>
         plan is { } cost && baseline > 0 ? (baseline - cost) / baseline * 100 : null;
 }

@@ -30,6 +30,7 @@ internal static class CostChecks
             ("permitPenalty", stated.PermitPenalty, recomputed.PermitPenalty),
             ("outfallPenalty", stated.OutfallPenalty, recomputed.OutfallPenalty),
             ("tankEndPenalty", stated.TankEndPenalty, recomputed.TankEndPenalty),
+            ("tankLimitPenalty", stated.TankLimitPenalty, recomputed.TankLimitPenalty),
         };
         var before = findings.Items.Count;
         foreach (var (name, s, r) in components)

@@ -7,7 +7,7 @@ namespace PlanDesk.Core.Checking;
 /// The one accounting of what a plan costs, used by the checker and the rule-based baseline alike (never by
 /// the MILP builder, so the two are independent). It takes the plan's flows, units, starts, shortfalls,
 /// imports and exports as given and works out everything else from the network: loads, outfall,
-/// demand charge, penalties. Call it on plans whose shape <see cref="PlanChecker"/> accepts.
+/// demand charge, penalties (including tank volumes outside their limits, priced per m3 per period). Call it on plans whose shape <see cref="PlanChecker"/> accepts.
 /// </summary>
 public static class PlanCosting
 {
@@ -55,6 +55,7 @@ public static class PlanCosting
             PermitPenalty = penalties.PermitExcessPerKg * plants.Values.Sum(a => Excess(a.TotalNitrogen) + Excess(a.TotalPhosphorus)),
             OutfallPenalty = penalties.OutfallExcessPerM3 * plants.Values.Sum(a => a.OutfallExcessM3.Sum()),
             TankEndPenalty = penalties.TankEndDeficitPerM3 * tankDeficits.Values.Sum(),
+            TankLimitPenalty = penalties.TankLimitPerM3 * network.Tanks.Sum(k => index.Tanks[k.Id].EndVolumeM3.Sum(v => OutsideM3(k, v))),
         };
         return new PlanAccounts(costs, plants, tankDeficits);
     }
@@ -62,6 +63,9 @@ public static class PlanCosting
     /// <summary>The treatment level a plan runs a plant at in period <paramref name="t"/>.</summary>
     public static TreatmentLevel LevelOn(PlanningCase planningCase, Plant plant, PlantPlan plan, int t) =>
         plant.Level(plan.LevelByDay[planningCase.Horizon.Periods[t].Day]);
+
+    /// <summary>How far a tank volume is below its minimum or above its maximum, m3.</summary>
+    public static double OutsideM3(Tank tank, double volumeM3) => Math.Max(0, tank.MinM3 - volumeM3) + Math.Max(0, volumeM3 - tank.MaxM3);
 
     private static double Excess(LoadAccount load) => load.DailyExcessKg.Sum() + load.MonthlyExcessKg.Sum();
 

@@ -2,7 +2,8 @@ using PlanDesk.Core.Model;
 
 namespace PlanDesk.Core.Checking;
 
-/// <summary>Tank volume balances (with losses) and volume limits.</summary>
+/// <summary>Tank volume balances (with losses) and volume limits (priced soft limits: the data may start a tank
+/// outside them, or losses may draw it down with nothing to refill it).</summary>
 internal static class TankChecks
 {
     public static void Check(Findings findings, PlanIndex index)
@@ -48,12 +49,12 @@ internal static class TankChecks
             if (findings.Tolerances.Below(volume[t], tank.MinM3))
             {
                 findings.AtPeriod(ViolationKind.TankMin, tank.Id.Value, t, tank.MinM3 - volume[t], "m3", tank.MinM3,
-                    $"tank {tank.Id} ends at {Findings.Q(volume[t])} m3, below its minimum of {Findings.Q(tank.MinM3)} m3");
+                    $"tank {tank.Id} ends at {Findings.Q(volume[t])} m3, below its minimum of {Findings.Q(tank.MinM3)} m3", penalised: true);
             }
             if (findings.Tolerances.Above(volume[t], tank.MaxM3))
             {
                 findings.AtPeriod(ViolationKind.TankMax, tank.Id.Value, t, volume[t] - tank.MaxM3, "m3", tank.MaxM3,
-                    $"tank {tank.Id} ends at {Findings.Q(volume[t])} m3, above its maximum of {Findings.Q(tank.MaxM3)} m3");
+                    $"tank {tank.Id} ends at {Findings.Q(volume[t])} m3, above its maximum of {Findings.Q(tank.MaxM3)} m3", penalised: true);
             }
         }
     }

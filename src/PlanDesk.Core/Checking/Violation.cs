@@ -15,7 +15,7 @@ namespace PlanDesk.Core.Checking;
 /// <param name="Unit">Unit of <paramref name="Amount"/> and <paramref name="Limit"/>: m3, kWh, Nm3, kg, units, mg/L, currency code ...</param>
 /// <param name="Limit">The limit or expected value the plan breaks, when there is one number.</param>
 /// <param name="Message">The violation in plain words.</param>
-/// <param name="Penalised">True for soft limits the objective prices (load caps, outfall flow): the plan
+/// <param name="Penalised">True for soft limits the objective prices (load caps, outfall flow, tank limits): the plan
 /// pays for them and must name them among its problems; false for rules no plan may break.</param>
 public sealed record Violation(
     string Kind,
