@@ -10,5 +10,8 @@ internal static class Commands
         ValidateCommand.Create(),
         SolveCommand.Create(),
         CheckCommand.Create(),
+        GenerateCommand.Create(),
+        BenchCommand.Create(),
+        BenchOneCommand.Create(),
     ];
 }
