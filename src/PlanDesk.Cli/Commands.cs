@@ -8,5 +8,7 @@ internal static class Commands
     public static IEnumerable<Command> All() =>
     [
         ValidateCommand.Create(),
+        ServeCommand.Create(),
+        KeysCommand.Create(),
     ];
 }
