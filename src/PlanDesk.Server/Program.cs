@@ -28,7 +28,7 @@ public sealed class Program
         builder.Logging.AddFilter("Microsoft.AspNetCore.DataProtection", LogLevel.Error);
         builder.Logging.AddFilter("PlanDesk.Server.Auth", LogLevel.Warning);
         builder.Services.AddProblemAnswers();
-        builder.Services.AddPlanDeskStore(builder.Configuration);
+        builder.Services.AddPlanDeskStore();
         builder.Services.AddApiKeys();
         builder.Services.AddSolveJobs();
         builder.Services.AddOpenApi(OpenApiSetup.Configure);

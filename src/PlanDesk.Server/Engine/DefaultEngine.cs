@@ -1,3 +1,4 @@
+using PlanDesk.Core.Loading;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 using PlanDesk.Core.Targets;
@@ -12,12 +13,18 @@ internal sealed class PlannerSolver : IPlanSolver
         Planner.Solve(planningCase, options, progress, cancellation);
 }
 
-// Placeholders until the loader, checker, baseline and sheet builder land on main.
-internal sealed class PendingNetworkReader : INetworkReader
+/// <summary>The network loader behind <see cref="INetworkReader"/>. Uploaded networks come without their CSV files,
+/// so CSV references are refused and series must be inline.</summary>
+internal sealed class LoaderNetworkReader : INetworkReader
 {
-    public NetworkReading Read(string json, string sourceName) =>
-        new(null, [$"{sourceName}: this build has no network loader yet"]);
+    public NetworkReading Read(string json, string sourceName)
+    {
+        var result = NetworkLoader.LoadText(json, sourceName, baseDirectory: null);
+        return new NetworkReading(result.Network, result.Problems.Select(p => p.ToString()).ToList());
+    }
 }
+
+// Placeholders until the checker, baseline and sheet builder land on main.
 
 internal sealed class PendingReviewer : IPlanReviewer
 {

@@ -27,11 +27,11 @@ internal static class ServiceSetup
     }
 
     /// <summary>The store chosen by configuration (SQLite data directory or PostgreSQL), migrated before anything else starts.</summary>
-    public static IServiceCollection AddPlanDeskStore(this IServiceCollection services, IConfiguration configuration)
+    public static IServiceCollection AddPlanDeskStore(this IServiceCollection services)
     {
-        var settings = StoreSettings.From(configuration);
-        services.AddSingleton(settings);
-        services.AddSingleton(_ => settings.CreateStore());
+        // Read when first needed, so settings given to the host after this call (tests, the CLI) count.
+        services.AddSingleton(provider => StoreSettings.From(provider.GetRequiredService<IConfiguration>()));
+        services.AddSingleton(provider => provider.GetRequiredService<StoreSettings>().CreateStore());
         services.AddHostedService<StoreMigration>();
         services.TryAddSingleton<IClock>(SystemClock.Instance);
         return services;
@@ -50,7 +50,7 @@ internal static class ServiceSetup
     /// <summary>The solve queue and the engine behind it; tests replace the engine's parts before these defaults apply.</summary>
     public static IServiceCollection AddSolveJobs(this IServiceCollection services)
     {
-        services.TryAddSingleton<INetworkReader, PendingNetworkReader>();
+        services.TryAddSingleton<INetworkReader, LoaderNetworkReader>();
         services.TryAddSingleton<IPlanSolver, PlannerSolver>();
         services.TryAddSingleton<IPlanReviewer, PendingReviewer>();
         services.TryAddSingleton<ITargetSheetBuilder, PendingSheetBuilder>();
