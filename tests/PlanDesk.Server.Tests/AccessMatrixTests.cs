@@ -109,7 +109,7 @@ public sealed class AccessMatrixTests(ServedNetwork served) : IClassFixture<Serv
         (_, _) => Request(HttpMethod.Post, path, body());
 
     private static Task<HttpRequestMessage> Request(HttpMethod method, string path, string? body = null) =>
-        Task.FromResult(new HttpRequestMessage(method, path) { Content = body is null ? null : TestApi.Json(body) });
+        Task.FromResult(new HttpRequestMessage(method, path) { Content = body is null ? null : JsonBody(body) });
 
     // Only a scheduler's call needs a job that is really running; the others are refused before the job is looked at.
     private static async Task<HttpRequestMessage> CancelRunningJob(ServedNetwork served, Caller caller)
