@@ -33,13 +33,23 @@ internal static class LoadTestCommand
         {
             controllers, seconds, thinkMs, actualsEvery, network, url, key,
         };
+        AddRange(controllers, 1, 500);
+        AddRange(seconds, 1, 600);
+        AddRange(thinkMs, 0, 60_000);
+        AddRange(actualsEvery, 1, 1_000_000);
+        url.Validators.Add(result =>
+        {
+            if (result.GetValueOrDefault<string?>() is { } address && !IsLoopback(address))
+            {
+                result.AddError($"--url {address} is not a loopback address; the load test only runs against this machine (http://127.0.0.1:PORT).");
+            }
+        });
         command.Validators.Add(result =>
         {
-            if (result.GetValue(controllers) is < 1 or > 500) result.AddError("--controllers must be 1 to 500.");
-            if (result.GetValue(seconds) is < 1 or > 600) result.AddError("--seconds must be 1 to 600.");
-            if (result.GetValue(actualsEvery) < 1) result.AddError("--actuals-every must be at least 1.");
-            if (result.GetValue(url) is { } address && !IsLoopback(address)) result.AddError($"--url {address} is not a loopback address; the load test only runs against this machine.");
-            if (result.GetValue(url) is not null && result.GetValue(key) is null) result.AddError("--url needs --key with a scheduler key of that server.");
+            if (result.GetResult(url) is not null && result.GetResult(key) is null)
+            {
+                result.AddError("--url needs --key with a scheduler key of that server.");
+            }
         });
         command.SetAction(async (parse, stop) =>
         {
@@ -68,6 +78,15 @@ internal static class LoadTestCommand
         });
         return command;
     }
+
+    private static void AddRange(Option<int> option, int least, int most) => option.Validators.Add(result =>
+    {
+        var value = result.GetValueOrDefault<int>();
+        if (value < least || value > most)
+        {
+            result.AddError($"{option.Name} is {value}; give {least} to {most}.");
+        }
+    });
 
     private sealed record LoadSettings(int Controllers, TimeSpan Duration, TimeSpan Think, int ActualsEvery);
 
