@@ -96,4 +96,17 @@ public sealed class TargetsTests : IDisposable
         Assert.False(first.Current);
         Assert.NotEqual(versions[0].PlanId, versions[1].PlanId);
     }
+
+    [Fact]
+    public async Task APlanCanBePublishedWithoutABody()
+    {
+        var scheduler = factory.ClientWith(await factory.AddKeyAsync(Role.Scheduler));
+        await UploadNetworkAsync(scheduler);
+        var planId = await SolveAsync(scheduler, Day);
+
+        var publication = await ReadAsync<PublicationResponse>(await scheduler.PostAsync($"/api/plans/{planId}/publish", null), HttpStatusCode.Created);
+
+        Assert.Equal(2, publication.Targets.Count);
+        Assert.Null(publication.Note);
+    }
 }
