@@ -24,7 +24,13 @@ internal sealed class LoaderNetworkReader : INetworkReader
     }
 }
 
-// Placeholders until the checker, baseline and sheet builder land on main.
+/// <summary>The Core target-sheet builder behind <see cref="ITargetSheetBuilder"/>.</summary>
+internal sealed class CoreSheetBuilder : ITargetSheetBuilder
+{
+    public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => PlantDayTargetsBuilder.Build(planningCase, plan);
+}
+
+// A placeholder until the checker and baseline land on main.
 
 internal sealed class PendingReviewer : IPlanReviewer
 {
@@ -34,7 +40,3 @@ internal sealed class PendingReviewer : IPlanReviewer
     public double? BaselineCost(PlanningCase planningCase) => null;
 }
 
-internal sealed class PendingSheetBuilder : ITargetSheetBuilder
-{
-    public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => [];
-}
