@@ -31,6 +31,7 @@ internal abstract partial class SqlStore
 
     public async Task<PublicationRecord> PublishAsync(long planId, IReadOnlyList<TargetSheetToPublish> sheets, string? note, Instant at, string keyId)
     {
+        at = Stored(at);
         await using var connection = await OpenAsync();
         // One writer at a time numbers versions, so every plant-day of this publication becomes current together
         // and a publication committed later supersedes all of this one's overlapping days.
