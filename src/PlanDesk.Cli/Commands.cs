@@ -9,6 +9,9 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         SolveCommand.Create(),
+        GenerateCommand.Create(),
+        BenchCommand.Create(),
+        BenchOneCommand.Create(),
         ServeCommand.Create(),
         KeysCommand.Create(),
         LoadTestCommand.Create(),
