@@ -87,6 +87,17 @@ public sealed class AccessMatrixTests(ServedNetwork served) : IClassFixture<Serv
     }
 
     [Fact]
+    public async Task TheKeyMayAlsoComeInTheXApiKeyHeader()
+    {
+        var client = served.Client(Caller.None);
+        var request = new HttpRequestMessage(HttpMethod.Get, Targets) { Headers = { { "X-Api-Key", served.Keys[Caller.Plant] } } };
+        var refused = new HttpRequestMessage(HttpMethod.Get, Targets) { Headers = { { "X-Api-Key", served.Keys[Caller.OtherPlant] } } };
+
+        Assert.Equal(HttpStatusCode.OK, (await client.SendAsync(request)).StatusCode);
+        Assert.Equal(HttpStatusCode.Forbidden, (await client.SendAsync(refused)).StatusCode);
+    }
+
+    [Fact]
     public void TheMatrixCoversEveryMappedEndpoint()
     {
         var mapped = served.Factory.Services.GetRequiredService<Microsoft.AspNetCore.Routing.EndpointDataSource>().Endpoints

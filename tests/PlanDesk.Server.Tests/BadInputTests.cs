@@ -229,4 +229,22 @@ public sealed class BadInputTests(ServedNetwork served) : IClassFixture<ServedNe
 
         Assert.Contains("was revoked", detail);
     }
+
+    [Fact]
+    public async Task AnUnknownRoleSaysWhichRolesThereAre()
+    {
+        var detail = await ProblemAsync(await Scheduler.PostAsync("/api/keys", JsonBody("""{ "role": "admin" }""")), HttpStatusCode.BadRequest);
+
+        Assert.Contains("one of scheduler, plant, viewer", detail);
+    }
+
+    [Fact]
+    public async Task AnEmptyBodyIsABadRequestSayingABodyIsNeeded()
+    {
+        var request = new HttpRequestMessage(HttpMethod.Post, "/api/plants/ashby/actuals") { Content = JsonBody(""), Headers = { { "Idempotency-Key", "empty" } } };
+
+        var detail = await ProblemAsync(await Plant.SendAsync(request), HttpStatusCode.BadRequest);
+
+        Assert.Contains("needs a JSON body", detail);
+    }
 }

@@ -8,9 +8,10 @@ using PlanDesk.Server.Store;
 namespace PlanDesk.Server.Keys;
 
 /// <summary>A request for a new key.</summary>
+/// <param name="Role">scheduler, plant or viewer.</param>
 /// <param name="PlantId">Required for, and only for, a plant key.</param>
 [JsonUnmappedMemberHandling(JsonUnmappedMemberHandling.Disallow)]
-public sealed record KeyRequest(Role Role, string? PlantId = null, string? Label = null);
+public sealed record KeyRequest(string Role, string? PlantId = null, string? Label = null);
 
 /// <summary>A key as listed: never the key itself.</summary>
 public sealed record KeyResponse(string KeyId, Role Role, string? PlantId, string Label, Instant CreatedAt, Instant? RevokedAt)
@@ -41,11 +42,15 @@ internal static class KeyEndpoints
 
     private static async Task<Results<Created<KeyCreatedResponse>, BadRequest<ProblemDetails>>> AddKey(KeyRequest request, IPlanDeskStore store, IClock clock)
     {
-        if (ApiKeys.CheckRoleAndPlant(request.Role, request.PlantId) is { } problem)
+        if (!Enum.TryParse<Role>(request.Role, ignoreCase: true, out var role) || !Enum.IsDefined(role) || int.TryParse(request.Role, out _))
+        {
+            return Problems.BadRequest("Key request not valid", $"role is '{request.Role}'; give one of scheduler, plant, viewer.");
+        }
+        if (ApiKeys.CheckRoleAndPlant(role, request.PlantId) is { } problem)
         {
             return Problems.BadRequest("Key request not valid", problem);
         }
-        var (key, record) = ApiKeys.Create(request.Role, request.PlantId, request.Label ?? "", clock.GetCurrentInstant());
+        var (key, record) = ApiKeys.Create(role, request.PlantId, request.Label ?? "", clock.GetCurrentInstant());
         await store.AddKeyAsync(record);
         return TypedResults.Created($"/api/keys/{record.KeyId}", new KeyCreatedResponse(key, KeyResponse.From(record)));
     }
