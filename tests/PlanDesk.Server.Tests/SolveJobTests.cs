@@ -43,7 +43,7 @@ public sealed class SolveJobTests
     {
         await using var served = await Served.StartAsync(store, publishDay: false);
         var job = await SubmitAsync(served.Scheduler, FakeSolver.BlockingDate);
-        await WaitForJobAsync(served.Scheduler, job.JobId, JobState.Running);
+        await served.Factory.Solver.WaitUntilBlockedAsync();
 
         var cancel = await served.Scheduler.PostAsync($"/api/jobs/{job.JobId}/cancel", null);
         var ended = await WaitForJobAsync(served.Scheduler, job.JobId);
@@ -85,7 +85,8 @@ public sealed class SolveJobTests
         var check = await ReadAsync<PlanCheckResponse>(await served.Scheduler.GetAsync($"/api/plans/{planId}/check"), HttpStatusCode.OK);
         var plan = await ReadAsync<PlanResponse>(await served.Scheduler.GetAsync($"/api/plans/{planId}"), HttpStatusCode.OK);
 
-        Assert.Equal((1026.0, 2000.0, 974.0), (summary.TotalCost, summary.BaselineCost!.Value, summary.SavingAgainstBaseline!.Value));
+        Assert.Equal((1026.0, 2000.0, 48.7, 0), (summary.Summary.Costs.Total, summary.Summary.BaselineCost!.Value, summary.Summary.SavingPercent!.Value, summary.Summary.CheckViolations));
+        Assert.Equal(2, summary.Summary.Energy.Count);
         Assert.Equal("test shortfall", Assert.Single(problems.Problems).Message);
         Assert.Equal(("corran-farm", Instant.FromUtc(2027, 3, 25, 23, 0), 0.42), (costs.Costs[0].CustomerId, costs.Costs[0].PeriodStart, costs.Costs[0].CostPerM3));
         Assert.True(check.Passed);

@@ -1,3 +1,5 @@
+using PlanDesk.Core.Baseline;
+using PlanDesk.Core.Checking;
 using PlanDesk.Core.Loading;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
@@ -30,13 +32,14 @@ internal sealed class CoreSheetBuilder : ITargetSheetBuilder
     public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => PlantDayTargetsBuilder.Build(planningCase, plan);
 }
 
-// A placeholder until the checker and baseline land on main.
-
-internal sealed class PendingReviewer : IPlanReviewer
+/// <summary>The independent checker and the rule-based baseline behind <see cref="IPlanReviewer"/>.</summary>
+internal sealed class CoreReviewer : IPlanReviewer
 {
-    public PlanCheckReport Check(PlanningCase planningCase, Plan plan) =>
-        new(false, [new CheckFinding("notChecked", "", "this build has no plan checker yet", null, null)]);
+    public PlanCheckReport Check(PlanningCase planningCase, Plan plan)
+    {
+        var report = PlanChecker.Check(planningCase, plan);
+        return new PlanCheckReport(report.Passed, report.Violations, report.RecomputedCosts);
+    }
 
-    public double? BaselineCost(PlanningCase planningCase) => null;
+    public BaselineComparison CompareWithBaseline(PlanningCase planningCase, Plan plan) => BaselineComparison.Of(planningCase, plan);
 }
-

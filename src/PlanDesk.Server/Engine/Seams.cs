@@ -1,3 +1,5 @@
+using PlanDesk.Core.Baseline;
+using PlanDesk.Core.Checking;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 using PlanDesk.Core.Targets;
@@ -28,15 +30,13 @@ public interface IPlanReviewer
 {
     PlanCheckReport Check(PlanningCase planningCase, Plan plan);
 
-    /// <summary>The baseline's total cost (operating plus penalties), or null when no baseline is available.</summary>
-    double? BaselineCost(PlanningCase planningCase);
+    /// <summary>The rule-based baseline on the same case, costed and compared with the plan.</summary>
+    BaselineComparison CompareWithBaseline(PlanningCase planningCase, Plan plan);
 }
 
 /// <summary>What the checker found. <see cref="Passed"/> is true when there are no violations.</summary>
-public sealed record PlanCheckReport(bool Passed, IReadOnlyList<CheckFinding> Violations);
-
-/// <param name="Size">How far the limit is broken, in <paramref name="Unit"/>; null when the finding has no size.</param>
-public sealed record CheckFinding(string Kind, string Where, string Message, double? Size, string? Unit);
+/// <param name="RecomputedCosts">The plan's cost as the checker works it out; null when the plan is too malformed to cost.</param>
+public sealed record PlanCheckReport(bool Passed, IReadOnlyList<Violation> Violations, CostBreakdown? RecomputedCosts);
 
 /// <summary>Cuts a plan into per-plant, per-local-day target sheets.</summary>
 public interface ITargetSheetBuilder

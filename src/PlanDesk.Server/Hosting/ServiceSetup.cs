@@ -52,7 +52,7 @@ internal static class ServiceSetup
     {
         services.TryAddSingleton<INetworkReader, LoaderNetworkReader>();
         services.TryAddSingleton<IPlanSolver, PlannerSolver>();
-        services.TryAddSingleton<IPlanReviewer, PendingReviewer>();
+        services.TryAddSingleton<IPlanReviewer, CoreReviewer>();
         services.TryAddSingleton<ITargetSheetBuilder, CoreSheetBuilder>();
         services.AddSingleton<NetworkCatalog>();
         services.AddSingleton<PlanPipeline>();

@@ -1,7 +1,7 @@
 using System.Text.Json.Serialization;
 using NodaTime;
 using PlanDesk.Core.Plans;
-using PlanDesk.Server.Engine;
+using PlanDesk.Core.Checking;
 
 namespace PlanDesk.Server.Plans;
 
@@ -45,7 +45,8 @@ public sealed record JobResponse(
     string JobHref,
     string PlanHref);
 
-/// <summary>The headline of a finished plan: cost against the rule-based baseline, solve quality, check and notes.</summary>
+/// <summary>The headline of a finished plan: the Core summary (cost by component, energy, permit headroom,
+/// shortfalls, problems, the rule-based baseline's cost and the saving against it), with what the service adds.</summary>
 public sealed record PlanSummaryResponse
 {
     public required long PlanId { get; init; }
@@ -54,27 +55,14 @@ public sealed record PlanSummaryResponse
     public required string NetworkName { get; init; }
     public required LocalDate StartDate { get; init; }
     public required int Days { get; init; }
+    /// <summary>milp for the planner.</summary>
     public required string Method { get; init; }
-    /// <summary>optimal, feasible or noPlan.</summary>
-    public required string Status { get; init; }
     public required string Solver { get; init; }
-    public required string Currency { get; init; }
-    public required double TotalCost { get; init; }
-    public required double OperatingCost { get; init; }
-    public required double PenaltyCost { get; init; }
-    public required CostBreakdown Costs { get; init; }
-    /// <summary>Total cost of the rule-based baseline over the same days; null when no baseline was computed.</summary>
-    public double? BaselineCost { get; init; }
-    /// <summary>Baseline cost minus plan cost, in the network's currency.</summary>
-    public double? SavingAgainstBaseline { get; init; }
-    public double? BestBound { get; init; }
-    public double? GapPercent { get; init; }
-    public required double SolveSeconds { get; init; }
-    public required int ProblemCount { get; init; }
+    /// <summary>True when the independent checker found no violation.</summary>
     public required bool CheckPassed { get; init; }
-    public required int CheckViolationCount { get; init; }
-    /// <summary>Starting values taken from reported actuals instead of the network file.</summary>
+    /// <summary>Starting values taken from reported actuals instead of the network file, and other solve notes.</summary>
     public required IReadOnlyList<string> Notes { get; init; }
+    public required PlanSummary Summary { get; init; }
     public required string Caution { get; init; }
 }
 
@@ -91,4 +79,4 @@ public sealed record MarginalWaterCostRow(string CustomerId, int Period, Instant
 
 public sealed record MarginalWaterCostsResponse(long PlanId, string Currency, IReadOnlyList<MarginalWaterCostRow> Costs);
 
-public sealed record PlanCheckResponse(long PlanId, bool Passed, IReadOnlyList<CheckFinding> Violations);
+public sealed record PlanCheckResponse(long PlanId, bool Passed, IReadOnlyList<Violation> Violations, CostBreakdown? RecomputedCosts);

@@ -93,7 +93,7 @@ internal static class PlanEndpoints
         {
             var summary = p.SummaryJson is null ? null : JsonSerializer.Deserialize<PlanSummaryResponse>(p.SummaryJson, ServerJson.Options);
             return new PlanListItem(p.Id, p.State, p.NetworkId, p.NetworkVersion, p.StartDate, p.Days, p.SubmittedAt, p.FinishedAt,
-                summary?.Status, summary?.TotalCost, $"/api/plans/{p.Id}");
+                summary?.Summary.Status, summary?.Summary.Costs.Total, $"/api/plans/{p.Id}");
         }).ToList();
         return TypedResults.Ok(items);
     }
@@ -122,7 +122,7 @@ internal static class PlanEndpoints
         WithFinishedPlan(store, planId, record =>
         {
             var check = JsonSerializer.Deserialize<PlanCheckReport>(record.CheckJson!, ServerJson.Options)!;
-            return new PlanCheckResponse(record.Id, check.Passed, check.Violations);
+            return new PlanCheckResponse(record.Id, check.Passed, check.Violations, check.RecomputedCosts);
         });
 
     private static Plan ReadPlan(PlanRecord record) => PlanJson.Deserialize(record.PlanJson!)!;

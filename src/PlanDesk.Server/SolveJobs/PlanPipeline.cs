@@ -1,6 +1,7 @@
 using System.Text.Json;
 using NodaTime;
 using PlanDesk.Core.Actuals;
+using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 using PlanDesk.Core.Targets;
@@ -60,22 +61,23 @@ internal sealed class PlanPipeline(
         cancellation.ThrowIfCancellationRequested();
         plan = plan with { Solve = plan.Solve with { Notes = [.. plan.Solve.Notes, .. prepared.ActualsNotes] } };
         var hasPlan = plan.Solve.Status != SolveStatus.NoPlan;
-        var check = hasPlan
-            ? reviewer.Check(planningCase, plan)
-            : new PlanCheckReport(false, [new CheckFinding("noPlan", prepared.Network.Network.Name, "The solver found no plan, so there is nothing to check.", null, null)]);
-        var baselineCost = reviewer.BaselineCost(planningCase);
+        var check = reviewer.Check(planningCase, plan);
+        var baseline = hasPlan ? reviewer.CompareWithBaseline(planningCase, plan) : null;
         IReadOnlyList<PlantDayTargets> sheets = hasPlan ? sheetBuilder.Build(planningCase, plan) : [];
-        var summary = PlanSummaries.Create(job, prepared.Network, plan, check, baselineCost);
+        var summary = PlanSummaries.Create(job, prepared.Network, planningCase, plan, check, baseline);
         var outcome = new PlanOutcome(
             JsonSerializer.Serialize(summary, ServerJson.Options),
             PlanJson.Serialize(plan),
             JsonSerializer.Serialize(check, ServerJson.Options),
             JsonSerializer.Serialize(sheets, ServerJson.Options));
         var message = hasPlan
-            ? $"{plan.Solve.Status} plan, total cost {summary.TotalCost:0.00} {summary.Currency}, check {(check.Passed ? "passed" : $"found {check.Violations.Count} violation(s)")}"
+            ? $"{plan.Solve.Status} plan, total cost {plan.Costs.Total:0.00} {plan.Currency}{Saving(baseline)}, check {(check.Passed ? "passed" : $"found {check.Violations.Count} violation(s)")}"
             : "The solver found no plan within its limits; see the summary and try a longer time limit.";
         return new SolvedPlan(outcome, message);
     }
+
+    private static string Saving(BaselineComparison? baseline) =>
+        baseline?.SavingPercent is { } percent ? $" ({percent:0.0} % below the rule-based baseline)" : "";
 
     private async Task<List<HourlyActuals>> ActualsBeforeAsync(Network network, LocalDate startDate)
     {

@@ -38,7 +38,7 @@ internal static class PublicationEndpoints
                 $"Plan {planId} is {plan.State}{(plan.Message is null ? "" : $" ({plan.Message})")}; only a plan whose solve succeeded can be published.");
         }
         var summary = JsonSerializer.Deserialize<PlanSummaryResponse>(plan.SummaryJson!, ServerJson.Options)!;
-        if (summary.Status == SolveStatus.NoPlan)
+        if (summary.Summary.Status == SolveStatus.NoPlan)
         {
             return Problems.Conflict("Plan cannot be published", $"The solver found no plan for plan {planId}, so it has no targets; solve again with a longer time limit.");
         }

@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using NodaTime;
+using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 using PlanDesk.Planning;
@@ -17,6 +18,16 @@ public sealed class FakeSolver : IPlanSolver
     public static readonly LocalDate BlockingDate = new(2027, 5, 1);
 
     public ConcurrentQueue<PlanningCase> Cases { get; } = new();
+
+    /// <summary>Waits until a solve starting on <see cref="BlockingDate"/> is inside the solver; fails after 30 s.</summary>
+    public async Task WaitUntilBlockedAsync()
+    {
+        for (var waited = 0; !Cases.Any(c => c.Horizon.StartDate == BlockingDate); waited += 10)
+        {
+            Assert.True(waited < 30_000, "the blocking solve did not reach the solver in 30 s");
+            await Task.Delay(10);
+        }
+    }
     public ConcurrentQueue<CancellationToken> CancelledTokens { get; } = new();
 
     public Plan Solve(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
@@ -36,10 +47,10 @@ public sealed class FakeSolver : IPlanSolver
     }
 }
 
-/// <summary>Stands in for the checker and baseline: every plan passes; the baseline costs 2000.</summary>
+/// <summary>Stands in for the checker and baseline: every plan passes; the baseline costs 2000, 48.7 % more than a plan.</summary>
 public sealed class FakeReviewer : IPlanReviewer
 {
-    public PlanCheckReport Check(PlanningCase planningCase, Plan plan) => new(true, []);
+    public PlanCheckReport Check(PlanningCase planningCase, Plan plan) => new(true, [], plan.Costs);
 
-    public double? BaselineCost(PlanningCase planningCase) => 2000;
+    public BaselineComparison CompareWithBaseline(PlanningCase planningCase, Plan plan) => new(2000, 48.7, 1900, 46.0, 0, 2);
 }
