@@ -16,7 +16,8 @@ namespace PlanDesk.Server.Tests.Infrastructure;
 /// The service in memory on a test database, with the planner and checker replaced by fakes and
 /// the clock fixed at 2027-03-27 12:00 UTC (so actuals for 2027-03-26 are in the past).
 /// </summary>
-public sealed class PlanDeskFactory(TestDatabase database) : WebApplicationFactory<Program>
+/// <param name="realEngine">Keep the real planner, checker and baseline (the clock stays fixed).</param>
+public sealed class PlanDeskFactory(TestDatabase database, bool realEngine = false) : WebApplicationFactory<Program>
 {
     public static readonly Instant Now = Instant.FromUtc(2027, 3, 27, 12, 0);
 
@@ -38,9 +39,12 @@ public sealed class PlanDeskFactory(TestDatabase database) : WebApplicationFacto
         }
         builder.ConfigureTestServices(services =>
         {
-            services.Replace(ServiceDescriptor.Singleton<IPlanSolver>(Solver));
-            services.Replace(ServiceDescriptor.Singleton<IPlanReviewer>(new FakeReviewer()));
             services.Replace(ServiceDescriptor.Singleton<IClock>(Clock));
+            if (!realEngine)
+            {
+                services.Replace(ServiceDescriptor.Singleton<IPlanSolver>(Solver));
+                services.Replace(ServiceDescriptor.Singleton<IPlanReviewer>(new FakeReviewer()));
+            }
         });
     }
 
