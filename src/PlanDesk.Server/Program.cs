@@ -19,14 +19,8 @@ public sealed class Program
     public static WebApplication Create(string[] args)
     {
         var builder = WebApplication.CreateBuilder(args);
-        if (string.IsNullOrEmpty(builder.Configuration[WebHostDefaults.ServerUrlsKey]))
-        {
-            builder.WebHost.UseUrls(ServiceSetup.DefaultUrl);
-        }
-        // Request lines are not logged: they would fill the log at every poll of every plant.
-        builder.Logging.AddFilter("Microsoft.AspNetCore", LogLevel.Warning);
-        builder.Logging.AddFilter("Microsoft.AspNetCore.DataProtection", LogLevel.Error);
-        builder.Logging.AddFilter("PlanDesk.Server.Auth", LogLevel.Warning);
+        builder.UseDefaultUrlUnlessGiven();
+        builder.Logging.LeaveRequestsOut();
         builder.Services.AddProblemAnswers();
         builder.Services.AddPlanDeskStore();
         builder.Services.AddApiKeys();

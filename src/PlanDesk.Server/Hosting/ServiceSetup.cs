@@ -16,6 +16,22 @@ internal static class ServiceSetup
 {
     public const string DefaultUrl = "http://127.0.0.1:5080";
 
+    /// <summary>Listens on <see cref="DefaultUrl"/> unless an address was given (--urls, ASPNETCORE_URLS).</summary>
+    public static WebApplicationBuilder UseDefaultUrlUnlessGiven(this WebApplicationBuilder builder)
+    {
+        if (string.IsNullOrEmpty(builder.Configuration[WebHostDefaults.ServerUrlsKey]))
+        {
+            builder.WebHost.UseUrls(DefaultUrl);
+        }
+        return builder;
+    }
+
+    /// <summary>Request lines and refused keys are not logged: they would fill the log at every poll of every plant.</summary>
+    public static ILoggingBuilder LeaveRequestsOut(this ILoggingBuilder logging) => logging
+        .AddFilter("Microsoft.AspNetCore", LogLevel.Warning)
+        .AddFilter("Microsoft.AspNetCore.DataProtection", LogLevel.Error)
+        .AddFilter("PlanDesk.Server.Auth", LogLevel.Warning);
+
     /// <summary>Problem details for every error, strict JSON, and bad requests surfaced so they can be explained.</summary>
     public static IServiceCollection AddProblemAnswers(this IServiceCollection services)
     {
