@@ -13,5 +13,8 @@ internal static class Commands
         GenerateCommand.Create(),
         BenchCommand.Create(),
         BenchOneCommand.Create(),
+        ServeCommand.Create(),
+        KeysCommand.Create(),
+        LoadTestCommand.Create(),
     ];
 }
