@@ -4,6 +4,7 @@ using PlanDesk.Server.Networks;
 using PlanDesk.Server.Plans;
 using PlanDesk.Server.Reports;
 using PlanDesk.Server.Targets;
+using PlanDesk.Server.Views;
 
 namespace PlanDesk.Server;
 
@@ -51,6 +52,8 @@ public sealed class Program
         app.MapTargets();
         app.MapPlantReports();
         app.MapKeys();
+        app.MapSession();
+        app.MapPlanViews();
         return app;
     }
 }
