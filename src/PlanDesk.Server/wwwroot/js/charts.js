@@ -52,6 +52,9 @@ export function chartBox(title, caption, { height = 240, testId } = {}) {
 
 function tooltipLabel(context) {
   const dataset = context.dataset;
+  if (dataset.describe) {
+    return dataset.describe(context.dataIndex);
+  }
   const value = context.raw;
   if (value === null || value === undefined) {
     return `${dataset.label}: –`;
@@ -61,9 +64,9 @@ function tooltipLabel(context) {
 }
 
 /** A value axis with its title (which must carry the unit). */
-export function valueAxis(title, { position = 'left', stacked = false, min, max, step, grid = true, decimals = 0 } = {}) {
+export function valueAxis(title, { position = 'left', stacked = false, min, max, step, grid = true, decimals = 0, grace } = {}) {
   return {
-    type: 'linear', position, stacked, min, max, beginAtZero: true,
+    type: 'linear', position, stacked, min, max, grace, beginAtZero: true,
     title: { display: true, text: title, color: colours.ink },
     grid: { display: grid, color: colours.grid },
     ticks: { stepSize: step, callback: value => num(value, decimals), color: colours.muted },
@@ -163,12 +166,12 @@ export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods
 /** Step-line dataset defaults (units running, bounds). */
 export function line(label, data, colour, { unit, decimals = 1, dashed = false, stepped = false, yAxisID = 'y', fill = false, width = 2 } = {}) {
   return {
-    type: 'line', label, data, unit, decimals, yAxisID, stepped, fill, stack: `line:${label}`,
+    type: 'line', label, data, unit, decimals, yAxisID, stepped, fill, stack: `line:${label}`, order: 0,
     borderColor: colour, backgroundColor: colour, borderWidth: width, pointRadius: 0, pointHoverRadius: 3,
     borderDash: dashed ? [6, 4] : [],
   };
 }
 
 export function bars(label, data, colour, { unit, decimals = 1, stack, yAxisID = 'y' } = {}) {
-  return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9 };
+  return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9, order: 1 };
 }

@@ -2,13 +2,13 @@
 
 const narrowSpace = '\u202f';
 
-/** A number with grouped thousands and at most `decimals` decimals; "–" for a missing value. */
-export function num(value, decimals = 0) {
+/** A number with grouped thousands and at most (with `fixed`, exactly) `decimals` decimals; "–" for a missing value. */
+export function num(value, decimals = 0, { fixed = false } = {}) {
   if (value === null || value === undefined || Number.isNaN(value)) {
     return '–';
   }
   const rounded = Math.round(value * 10 ** decimals) / 10 ** decimals;
-  const text = (Object.is(rounded, -0) ? 0 : rounded).toLocaleString('en-US', { maximumFractionDigits: decimals, minimumFractionDigits: 0 });
+  const text = (Object.is(rounded, -0) ? 0 : rounded).toLocaleString('en-US', { maximumFractionDigits: decimals, minimumFractionDigits: fixed ? decimals : 0 });
   return text.replace(/,/g, narrowSpace).replace(/^-/, '−');
 }
 
@@ -18,7 +18,7 @@ export function qty(value, unit, decimals = 0) {
 }
 
 export function money(value, currency) {
-  return value === null || value === undefined ? '–' : `${num(value, 2)} ${currency}`;
+  return value === null || value === undefined ? '–' : `${num(value, 2, { fixed: true })} ${currency}`.trimEnd();
 }
 
 export function percent(value, decimals = 0) {

@@ -49,7 +49,7 @@ function dailyChart(series, customer, colour, draws) {
       bars('shortfall', totals.map(t => t.shortfall), colours.shortfall, { unit: 'm3', decimals: 0, stack: 'water' }),
       { ...line('demand', totals.map(t => t.demand), colours.demand, { unit: 'm3', decimals: 0, dashed: true }), pointRadius: 4, showLine: false },
     ],
-    scales: { x: dayAxis(totals.map(t => t.date), { stacked: true }), y: valueAxis('water (m3 per day)', { stacked: true }) },
+    scales: { x: dayAxis(totals.map(t => t.date), { stacked: true }), y: valueAxis('water (m3 per day)', { stacked: true, grace: '8%' }) },
   }));
   return box.element;
 }
@@ -62,7 +62,7 @@ function overviewTable(series) {
       h('a', { href: `#/plan/${series.planId}/customers/${encodeURIComponent(c.customerId)}` }, c.name),
       c.kind || '–', c.classId, String(c.priority),
       qty(sum(totals.map(t => t.demand)), 'm3'), qty(sum(totals.map(t => t.delivered)), 'm3'), qty(sum(totals.map(t => t.shortfall)), 'm3'),
-      costs.length ? `${num(sum(costs) / costs.length, 3)} ${series.currency}/m3` : '–',
+      costs.length ? `${num(sum(costs) / costs.length, 3, { fixed: true })} ${series.currency}/m3` : '–',
     ];
   });
   return table(['Customer', 'Kind', 'Class', 'Priority', 'Demand', 'Delivered', 'Short', 'Mean marginal cost'], rows);

@@ -116,7 +116,7 @@ export async function showOverview(view, context, planIdText) {
   const charts = [costChart(summary), comparisonChart(summary)].filter(Boolean);
   fill(view, ...planHeader(summary, ''),
     headline(summary),
-    summary.notes?.length ? note(`Notes: ${summary.notes.join(' ')}`) : null,
+    summary.notes?.length ? h('div', { class: 'message info' }, h('strong', {}, 'Notes on this solve'), h('ul', {}, summary.notes.map(n => h('li', {}, n)))) : null,
     panel('The region', schematicBox, schematicLegend()),
     h('div', { class: 'columns' },
       h('div', { class: 'half' }, panel('Cost', ...charts.map(c => c.element))),

@@ -1,44 +1,42 @@
-// The permit view: each plant's daily and month-to-date total N and total P loads against their caps, with headroom.
+// The permit view: each plant's daily and month-to-date total N and total P loads against their caps, with
+// headroom. Loads are drawn as a share of their cap so four caps read against one line at 100 %.
 
 import { h, fill, note, panel, table } from '../dom.js';
-import { day, qty } from '../format.js';
+import { day, num, qty } from '../format.js';
 import { chartBox, makeChart, colours, valueAxis, dayAxis, line, bars } from '../charts.js';
 import { planDocument, planHeader } from './plan-common.js';
 
-const nutrients = [
-  { key: 'TotalNitrogen', name: 'total N', colour: '#4f7896' },
-  { key: 'TotalPhosphorus', name: 'total P', colour: '#8a6d3b' },
+const measures = [
+  { name: 'total N, day', load: 'totalNitrogenKg', cap: 'dailyTotalNitrogenCapKg', colour: '#4f7896' },
+  { name: 'total N, month to date', load: 'monthToDateTotalNitrogenKg', cap: 'monthlyTotalNitrogenCapKg', colour: '#9cb7cc' },
+  { name: 'total P, day', load: 'totalPhosphorusKg', cap: 'dailyTotalPhosphorusCapKg', colour: '#8a6d3b' },
+  { name: 'total P, month to date', load: 'monthToDateTotalPhosphorusKg', cap: 'monthlyTotalPhosphorusCapKg', colour: '#cdb98f' },
 ];
 
+const capped = value => value !== null && value !== undefined && value > 0;
+
 function headroom(load, cap) {
-  return cap === null || cap === undefined ? null : cap - load;
+  return capped(cap) ? cap - load : null;
 }
 
-function nutrientChart(plant, nutrient, draws) {
+function loadsChart(plant, draws) {
   const days = plant.permit;
-  const dates = days.map(d => d.date);
-  const daily = days.map(d => d[`${lower(nutrient.key)}Kg`]);
-  const dailyCap = days.map(d => d[`daily${nutrient.key}CapKg`]);
-  const toDate = days.map(d => d[`monthToDate${nutrient.key}Kg`]);
-  const monthlyCap = days.map(d => d[`monthly${nutrient.key}CapKg`]);
-  const box = chartBox(`${plant.name}: ${nutrient.name}`, `kg per local day against the daily cap (left), and month to date against the monthly cap (right).`,
-    { height: 220, testId: `permit-${plant.plantId}-${nutrient.name.replace(' ', '-')}` });
-  const datasets = [bars(`${nutrient.name} discharged`, daily, nutrient.colour, { unit: 'kg', decimals: 1 })];
-  if (dailyCap.some(v => v !== null && v !== undefined)) {
-    datasets.push({ ...line('daily cap', dailyCap, colours.cap, { unit: 'kg', decimals: 1, dashed: true }), pointRadius: 3 });
+  const shown = measures.filter(m => days.some(d => capped(d[m.cap])));
+  if (shown.length === 0) {
+    return note('This plant\'s permit sets no total N or total P caps.');
   }
-  const scales = { x: dayAxis(dates), y: valueAxis(`${nutrient.name} per day (kg)`) };
-  if (monthlyCap.some(v => v !== null && v !== undefined)) {
-    datasets.push({ ...line('month to date', toDate, colours.ink, { unit: 'kg', decimals: 0, yAxisID: 'month' }), pointRadius: 3 });
-    datasets.push({ ...line('monthly cap', monthlyCap, colours.price, { unit: 'kg', decimals: 0, yAxisID: 'month', dashed: true }), pointRadius: 0 });
-    scales.month = valueAxis(`${nutrient.name} month to date (kg)`, { position: 'right', grid: false });
-  }
-  draws.push(() => makeChart(box.canvas, { labels: dates.map(d => day(d, { year: false })), datasets, scales }));
+  const box = chartBox('Loads against caps', 'each load as a share of its cap (100 % is the cap); hover for kg.', { height: 210, testId: `permit-${plant.plantId}` });
+  const datasets = shown.map(m => ({
+    ...bars(m.name, days.map(d => (capped(d[m.cap]) ? (100 * d[m.load]) / d[m.cap] : null)), m.colour, { unit: '% of cap' }),
+    describe: i => `${m.name}: ${qty(days[i][m.load], 'kg', 1)} of ${qty(days[i][m.cap], 'kg', 1)} cap (${num((100 * days[i][m.load]) / days[i][m.cap], 1)} %), headroom ${qty(headroom(days[i][m.load], days[i][m.cap]), 'kg', 1)}`,
+  }));
+  datasets.push({ ...line('cap', days.map(() => 100), colours.cap, { unit: '%', dashed: true, width: 2 }), describe: () => 'cap: 100 %' });
+  draws.push(() => makeChart(box.canvas, {
+    labels: days.map(d => day(d.date, { year: false })),
+    datasets,
+    scales: { x: dayAxis(days.map(d => d.date)), y: valueAxis('load (% of cap)', { grace: '5%' }) },
+  }));
   return box.element;
-}
-
-function lower(key) {
-  return key[0].toLowerCase() + key.slice(1);
 }
 
 function permitTable(plant) {
@@ -48,9 +46,11 @@ function permitTable(plant) {
     qty(d.totalNitrogenKg, 'kg', 1), qty(d.dailyTotalNitrogenCapKg, 'kg', 1), qty(headroom(d.totalNitrogenKg, d.dailyTotalNitrogenCapKg), 'kg', 1),
     qty(d.monthToDateTotalNitrogenKg, 'kg'), qty(headroom(d.monthToDateTotalNitrogenKg, d.monthlyTotalNitrogenCapKg), 'kg'),
     qty(d.totalPhosphorusKg, 'kg', 1), qty(d.dailyTotalPhosphorusCapKg, 'kg', 1), qty(headroom(d.totalPhosphorusKg, d.dailyTotalPhosphorusCapKg), 'kg', 1),
+    qty(d.monthToDateTotalPhosphorusKg, 'kg'), qty(headroom(d.monthToDateTotalPhosphorusKg, d.monthlyTotalPhosphorusCapKg), 'kg'),
   ]);
-  return table(['Day', 'Outfall', 'N load', 'N daily cap', 'N headroom', 'N month to date', 'N monthly headroom', 'P load', 'P daily cap', 'P headroom'], rows,
-    { caption: 'Headroom is the cap minus the load; a negative headroom is a breach the plan pays a penalty for.' });
+  return table(['Day', 'Outfall', 'N load', 'N daily cap', 'N headroom', 'N month to date', 'N month headroom',
+    'P load', 'P daily cap', 'P headroom', 'P month to date', 'P month headroom'], rows,
+  { caption: 'Headroom is the cap minus the load (– where the permit sets no cap); a negative headroom is a breach the plan pays a penalty for. Month to date includes the loads reported before the plan.' });
 }
 
 export async function showPermits(view, context, planIdText) {
@@ -62,7 +62,7 @@ export async function showPermits(view, context, planIdText) {
   const draws = [];
   const sections = series.plants.map(plant => plant.permit.length === 0
     ? panel(plant.name, note('This plan has no target sheets for this plant, so its permit loads are not available.', 'warning'))
-    : panel(plant.name, h('div', { class: 'chart-grid' }, nutrients.map(n => nutrientChart(plant, n, draws))), permitTable(plant)));
+    : panel(plant.name, h('div', { class: 'permit-row' }, loadsChart(plant, draws), h('div', { class: 'table-scroll' }, permitTable(plant)))));
   fill(view, ...planHeader(summary, '/permits'), ...sections);
   draws.forEach(draw => draw());
 }

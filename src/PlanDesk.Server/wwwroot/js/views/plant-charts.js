@@ -40,7 +40,7 @@ function unitsChart(series, plant, draws) {
   ]);
   draws.push(() => makeChart(box.canvas, {
     type: 'line', datasets, periods: series.periods, zone: series.timeZone,
-    scales: { y: valueAxis('units (count)', { min: 0, max: most + 0.5, step: 1 }) },
+    scales: { y: valueAxis('units (count)', { min: 0, max: most + 1, step: 1 }) },
   }));
   return box.element;
 }
@@ -55,7 +55,7 @@ export function tankChart(series, tank, draws) {
       line('maximum', Array(count).fill(tank.maxM3), colours.cap, { unit: 'm3', decimals: 0, dashed: true, width: 1.5 }),
       line('minimum', Array(count).fill(tank.minM3), colours.bound, { unit: 'm3', decimals: 0, dashed: true, width: 1.5 }),
     ],
-    scales: { y: valueAxis('volume (m3)', { max: tank.maxM3 * 1.05 }) },
+    scales: { y: valueAxis('volume (m3)', { grace: '5%' }) },
   }));
   return box.element;
 }
@@ -94,7 +94,7 @@ function engineChart(series, plant, draws) {
     ],
     scales: {
       y: valueAxis(`engine output (kWh ${per})`),
-      gas: valueAxis('gas in holder (Nm3)', { position: 'right', grid: false, max: plant.energy.holderMaxNm3 * 1.05 }),
+      gas: valueAxis('gas in holder (Nm3)', { position: 'right', grid: false, grace: '5%' }),
     },
   }));
   return box.element;

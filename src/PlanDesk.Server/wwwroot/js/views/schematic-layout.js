@@ -3,7 +3,7 @@
 // element near what feeds it without overlapping.
 
 export const size = {
-  plantWidth: 250, tankWidth: 190, customerWidth: 220, columnGap: 80,
+  plantWidth: 250, tankWidth: 220, customerWidth: 240, columnGap: 80,
   plantHeader: 46, stageRow: 22, tankHeight: 46, customerHeight: 46, rowGap: 10, groupGap: 26, margin: 16,
 };
 

@@ -166,7 +166,7 @@ function links(schematic, boxes) {
     }
     const bound = pipe.binding.length > 0;
     drawn.push(link({ x: from.x + from.width, y: from.y + from.height / 2 }, { x: to.x, y: to.y + to.height / 2 }, {
-      colour: pipe.use ? (bound ? limitColour : shade(useColour(pipe.use))) : '#aab4bd',
+      colour: pipe.use ? shade(useColour(pipe.use)) : '#aab4bd',
       width: pipe.use ? 2 + 4 * Math.min(1, pipe.use.meanPercent / 100) : 2,
       bound,
       title: [pipe.name, `Flow: ${useText(pipe.use)}`, ...pipe.binding.map(b => `Limit: ${b}`)],
