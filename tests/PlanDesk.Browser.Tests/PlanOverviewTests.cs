@@ -71,7 +71,7 @@ public sealed class PlanOverviewTests(DeskFixture desk)
     {
         var scheduler = await desk.Api.AddKeyAsync(Role.Scheduler);
         var networkId = await desk.Api.UploadAsync(scheduler, TestRegions.Large(20), "large");
-        var planId = await desk.Api.SolveAsync(scheduler, networkId, "2027-03-26", 1, timeLimitSeconds: 15);
+        var planId = await desk.Api.SolveAsync(scheduler, networkId, "2027-03-26", 1, timeLimitSeconds: 40);
         await using var page = await desk.OpenPageAsync();
 
         await page.SignInAsync(scheduler);

@@ -19,8 +19,8 @@ public sealed class PlantViewTests(DeskFixture desk)
         var plantKey = await desk.Api.AddKeyAsync(Role.Plant, "orrinford");
         await desk.Api.ReportActualsAsync(plantKey, "orrinford", new[]
         {
-            new { hourStart = "2027-03-28T00:00:00Z", productionM3ByClass = new { A = 110.0 }, tankLevelsM3 = new Dictionary<string, double> { ["orrinford-tank"] = 790 } },
-            new { hourStart = "2027-03-28T01:00:00Z", productionM3ByClass = new { A = 105.0 }, tankLevelsM3 = new Dictionary<string, double> { ["orrinford-tank"] = 795 } },
+            new { hourStart = "2027-03-28T00:00:00Z", productionM3ByClass = new Dictionary<string, double> { ["A"] = 110 }, tankLevelsM3 = new Dictionary<string, double> { ["orrinford-tank"] = 790 } },
+            new { hourStart = "2027-03-28T01:00:00Z", productionM3ByClass = new Dictionary<string, double> { ["A"] = 105 }, tankLevelsM3 = new Dictionary<string, double> { ["orrinford-tank"] = 795 } },
         });
         await using var page = await desk.OpenPageAsync();
 

@@ -7,7 +7,8 @@ public static class TestRegions
 {
     /// <summary>A region of <paramref name="plants"/> plants, each with a class A stage and tank and a class B stage
     /// and tank, two customers per plant, and three regional reservoirs each filled by a third of the plants and
-    /// serving two customers of their own. Constant series, so any day can be planned.</summary>
+    /// serving two customers of their own. Constant series, so any day can be planned; one unit per stage without a
+    /// minimum flow keeps the solve short.</summary>
     public static JsonObject Large(int plants)
     {
         var plantNodes = new JsonArray();
@@ -80,7 +81,7 @@ public static class TestRegions
     private static JsonObject Stage(string id, string name, string tank, string producesClass) => new()
     {
         ["id"] = id, ["name"] = name, ["feed"] = "secondary", ["tank"] = tank, ["producesClass"] = producesClass,
-        ["recoveryFraction"] = 0.97, ["energyKWhPerM3"] = 0.05, ["units"] = 2, ["unitMinFlowM3PerHour"] = 20, ["unitMaxFlowM3PerHour"] = 120,
+        ["recoveryFraction"] = 0.97, ["energyKWhPerM3"] = 0.05, ["units"] = 1, ["unitMinFlowM3PerHour"] = 0, ["unitMaxFlowM3PerHour"] = 200,
         ["initialUnitsRunning"] = 1,
     };
 

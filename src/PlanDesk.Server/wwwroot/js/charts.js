@@ -63,13 +63,20 @@ function tooltipLabel(context) {
   return `${dataset.label}: ${num(shown, dataset.decimals ?? 1)} ${dataset.unit ?? ''}`.trimEnd();
 }
 
+// As many decimals as the tick step has (0.005 → three, 2.5 → one, 500 → none), so neighbouring ticks differ.
+function tickLabel(value, index, ticks) {
+  const step = ticks.length > 1 ? Math.abs(ticks[1].value - ticks[0].value) : 1;
+  const decimals = Math.min(4, (String(Number(step.toPrecision(6))).split('.')[1] ?? '').length);
+  return num(value, decimals, { fixed: true });
+}
+
 /** A value axis with its title (which must carry the unit). */
-export function valueAxis(title, { position = 'left', stacked = false, min, max, step, grid = true, decimals = 0, grace } = {}) {
+export function valueAxis(title, { position = 'left', stacked = false, min, max, step, grid = true, grace } = {}) {
   return {
     type: 'linear', position, stacked, min, max, grace, beginAtZero: true,
     title: { display: true, text: title, color: colours.ink },
     grid: { display: grid, color: colours.grid },
-    ticks: { stepSize: step, callback: value => num(value, decimals), color: colours.muted },
+    ticks: { stepSize: step, callback: tickLabel, color: colours.muted },
   };
 }
 

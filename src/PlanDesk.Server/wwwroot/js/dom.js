@@ -55,11 +55,14 @@ export function panel(title, ...children) {
   return h('section', { class: 'panel' }, title ? h('h2', {}, title) : null, ...children);
 }
 
+// A number, maybe with grouped thousands and one unit after it ("1 240 m3", "0.049 EUR/m3"), or a dash for none.
+const numericCell = /^(–|[−+-]?\d[\d\u202f\u00a0 ]*([.,]\d+)?( [^\s\d]\S*)?)$/;
+
 /** A table from column headings and rows of cells; numeric cells are right-aligned. */
 export function table(headings, rows, { caption, className } = {}) {
   return h('table', { class: className ?? 'grid' },
     caption ? h('caption', {}, caption) : null,
     h('thead', {}, h('tr', {}, headings.map(c => h('th', { scope: 'col' }, c)))),
     h('tbody', {}, rows.map(row => h('tr', {}, row.map(cell =>
-      h('td', { class: typeof cell === 'number' || /^[−\-+]?[\d  ]+([.,]\d+)?( |$)/.test(String(cell)) ? 'num' : null }, cell))))));
+      h('td', { class: typeof cell === 'number' || (typeof cell === 'string' && numericCell.test(cell)) ? 'num' : null }, cell))))));
 }

@@ -45,9 +45,10 @@ export function periodTitle(period) {
   return `${day(period.localStart.slice(0, 10), { year: false })} ${clock(period.localStart)} (UTC${period.utcOffset})`;
 }
 
-export function instant(isoInstant) {
+/** A moment as date and time, in the given IANA zone (the browser's own when none is given). */
+export function instant(isoInstant, timeZone) {
   const date = new Date(isoInstant);
-  return date.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+  return date.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone });
 }
 
 /** Adds days to an ISO date. */

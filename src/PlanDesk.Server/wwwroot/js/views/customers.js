@@ -33,7 +33,7 @@ function hourlyChart(series, customer, colour, draws) {
   }
   const scales = { y: valueAxis(`water (m3 ${per})`, { stacked: true }) };
   if (hasCosts) {
-    scales.cost = valueAxis(`marginal cost (${series.currency}/m3)`, { position: 'right', grid: false, decimals: 2 });
+    scales.cost = valueAxis(`marginal cost (${series.currency}/m3)`, { position: 'right', grid: false });
   }
   draws.push(() => makeChart(box.canvas, { datasets, periods: series.periods, zone: series.timeZone, stacked: true, scales }));
   return box.element;

@@ -63,7 +63,7 @@ function costChart(summary) {
     }],
     scales: {
       x: { ...valueAxis(`cost (${summary.currency})`), beginAtZero: true },
-      y: { type: 'category', grid: { display: false }, ticks: { color: colours.ink } },
+      y: { type: 'category', grid: { display: false }, ticks: { color: colours.ink }, title: { display: true, text: 'cost component', color: colours.ink } },
     },
     legend: false,
     indexAxis: 'y',
@@ -80,7 +80,7 @@ function comparisonChart(summary) {
     type: 'bar',
     labels: ['this plan', 'rule-based plan'],
     datasets: [{ label: 'total cost', unit: summary.currency, decimals: 2, data: [summary.totalCost, summary.baselineCost], backgroundColor: ['#6a43a6', '#9aa6b0'] }],
-    scales: { x: { ...valueAxis(`total cost (${summary.currency})`) }, y: { type: 'category', grid: { display: false } } },
+    scales: { x: { ...valueAxis(`total cost (${summary.currency})`) }, y: { type: 'category', grid: { display: false }, title: { display: true, text: 'plan', color: colours.ink } } },
     legend: false,
     indexAxis: 'y',
   });

@@ -110,7 +110,7 @@ function levelChart(series, plant, draws) {
       label: 'effluent total N', unit: 'mg/L', decimals: 1, data: chosen.map(l => l?.effluentTotalNitrogenMgPerL ?? null),
       backgroundColor: '#6a43a6', barPercentage: 0.6,
     }],
-    scales: { x: dayAxis(dates), y: valueAxis('effluent total N (mg/L)', { decimals: 0 }) },
+    scales: { x: dayAxis(dates), y: valueAxis('effluent total N (mg/L)') },
     legend: false,
   }));
   const names = h('p', { class: 'hint' }, series.days.map((d, i) => `${day(d.date, { year: false })}: ${chosen[i]?.name ?? '–'}`).join(' · '));

@@ -41,6 +41,7 @@ function acknowledgeBlock(plantId, targets, acknowledgements, reload) {
 async function daySection(plantId, date, label, actualsByStart) {
   const section = h('section', { class: 'panel plant-day', 'data-date': date });
   let plantName = null;
+  let timeZone = null;
   let pending = [];
   const render = async () => {
     let targets;
@@ -53,6 +54,7 @@ async function daySection(plantId, date, label, actualsByStart) {
     const acknowledgements = await api(`${base(plantId)}/targets/${date}/acknowledgements`).catch(() => []);
     const sheet = targets.sheet;
     plantName = sheet.plantName;
+    timeZone = sheet.timeZone;
     pending = [];
     fill(section,
       h('h2', {}, `${label}: ${day(date)}`),
@@ -68,16 +70,16 @@ async function daySection(plantId, date, label, actualsByStart) {
     pending = [];
   };
   await render();
-  return { section, draw, plantName: () => plantName };
+  return { section, draw, plantName: () => plantName, timeZone: () => timeZone };
 }
 
-function actualsTable(hours) {
+function actualsTable(hours, timeZone) {
   if (hours.length === 0) {
     return note('No actuals were reported for these days yet.');
   }
-  return table(['Hour start (UTC)', 'Influent m3', 'Production m3', 'Outfall m3', 'Imported kWh', 'Generated kWh', 'Tank levels m3'],
+  return table([`Hour start (${timeZone ?? 'local'})`, 'Influent m3', 'Production m3', 'Outfall m3', 'Imported kWh', 'Generated kWh', 'Tank levels m3'],
     hours.slice(-48).map(({ hour }) => [
-      instant(hour.hourStart),
+      instant(hour.hourStart, timeZone),
       hour.influentM3 ?? '–',
       hour.productionM3ByClass ? Object.entries(hour.productionM3ByClass).map(([c, v]) => `${c}: ${v}`).join(', ') : '–',
       hour.outfallM3 ?? '–', hour.energyImportedKWh ?? '–', hour.energyGeneratedKWh ?? '–',
@@ -123,6 +125,6 @@ export async function showPlantDesk(view, context, plantId, dateParam) {
   }
   const title = ownPlant?.name ?? days.map(d => d.plantName()).find(Boolean) ?? plantId;
   fill(view, h('h1', { id: 'plant-name' }, `${title}: targets`), controls, ...days.map(d => d.section),
-    panel('Recent actuals', actualsError ? errorBox(actualsError) : actualsTable(actuals.hours)));
+    panel('Recent actuals', actualsError ? errorBox(actualsError) : actualsTable(actuals.hours, ownPlant?.timeZone ?? days.map(d => d.timeZone()).find(Boolean))));
   days.forEach(d => d.draw());
 }
