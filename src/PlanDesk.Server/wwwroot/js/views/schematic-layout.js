@@ -42,7 +42,38 @@ function stack(items, height, gap) {
   }
 }
 
-/** Returns boxes {x, y, width, height} for plants, tanks and customers, the columns' x, and the drawing size. */
+/**
+ * Which plant's row each customer is drawn in: the mean position of the plants whose water reaches it (through
+ * reservoirs too), so a customer sits beside the plants that serve it and no column drifts away from the others.
+ */
+function customerRows(schematic) {
+  const plantIndex = new Map(schematic.plants.map((p, i) => [p.plantId, i]));
+  const sourcesOf = id => schematic.pipelines.filter(p => p.toId === id).map(p => p.fromTankId);
+  const tankRow = new Map();
+  const rowOfTank = (tankId, seen = new Set()) => {
+    if (tankRow.has(tankId)) {
+      return tankRow.get(tankId);
+    }
+    const tank = schematic.tanks.find(t => t.tankId === tankId);
+    let row = null;
+    if (tank?.plantId && plantIndex.has(tank.plantId)) {
+      row = plantIndex.get(tank.plantId);
+    } else if (!seen.has(tankId)) {
+      seen.add(tankId);
+      const rows = sourcesOf(tankId).map(source => rowOfTank(source, seen)).filter(r => r !== null);
+      row = rows.length ? rows.reduce((a, b) => a + b, 0) / rows.length : null;
+    }
+    tankRow.set(tankId, row);
+    return row;
+  };
+  const last = Math.max(0, schematic.plants.length - 1);
+  return new Map(schematic.customers.map(customer => {
+    const rows = sourcesOf(customer.customerId).map(source => rowOfTank(source)).filter(r => r !== null);
+    return [customer.customerId, rows.length ? Math.round(rows.reduce((a, b) => a + b, 0) / rows.length) : last];
+  }));
+}
+
+/** Returns boxes {x, y, width, height} for plants, tanks and customers, and the drawing's size. */
 export function layout(schematic) {
   const depth = tankDepths(schematic);
   const maxDepth = Math.max(1, ...depth.values());
@@ -53,10 +84,11 @@ export function layout(schematic) {
   }
   const customerX = columnX[maxDepth] + size.tankWidth + size.columnGap;
   const boxes = new Map();
+  const rowOf = customerRows(schematic);
 
-  // Plants down the left, each with its own tanks beside it.
+  // One row per plant: the plant, its tanks beside it and the customers it serves at the right, as tall as the tallest.
   let y = size.margin;
-  for (const plant of schematic.plants) {
+  schematic.plants.forEach((plant, index) => {
     const height = plantHeight(plant);
     boxes.set(`plant:${plant.plantId}`, { x: columnX[0], y, width: size.plantWidth, height });
     let tankY = y;
@@ -64,41 +96,41 @@ export function layout(schematic) {
       boxes.set(`tank:${tank.tankId}`, { x: columnX[1], y: tankY, width: size.tankWidth, height: size.tankHeight });
       tankY += size.tankHeight + size.rowGap;
     }
-    y = Math.max(y + height, tankY - size.rowGap) + size.groupGap;
+    let customerY = y;
+    for (const customer of schematic.customers.filter(c => rowOf.get(c.customerId) === index)) {
+      boxes.set(`customer:${customer.customerId}`, { x: customerX, y: customerY, width: size.customerWidth, height: size.customerHeight });
+      customerY += size.customerHeight + size.rowGap;
+    }
+    y = Math.max(y + height, tankY - size.rowGap, customerY - size.rowGap) + size.groupGap;
+  });
+  // Anything without a plant row (a network of reservoirs only) goes below.
+  for (const tank of schematic.tanks.filter(t => t.plantId && !boxes.has(`tank:${t.tankId}`))) {
+    boxes.set(`tank:${tank.tankId}`, { x: columnX[1], y, width: size.tankWidth, height: size.tankHeight });
+    y += size.tankHeight + size.rowGap;
+  }
+  for (const customer of schematic.customers.filter(c => !boxes.has(`customer:${c.customerId}`))) {
+    boxes.set(`customer:${customer.customerId}`, { x: customerX, y, width: size.customerWidth, height: size.customerHeight });
+    y += size.customerHeight + size.rowGap;
   }
 
+  // Reservoirs, column by column, level with the tanks that fill them.
   const centreOf = key => {
     const box = boxes.get(key);
     return box ? box.y + box.height / 2 : null;
   };
-  const wantedFrom = sources => {
-    const centres = sources.map(centreOf).filter(c => c !== null);
-    return centres.length ? centres.reduce((a, b) => a + b, 0) / centres.length : size.margin;
-  };
-
-  // Reservoirs, column by column, near the tanks that fill them.
   for (let d = 2; d <= maxDepth; d++) {
-    const column = schematic.tanks.filter(t => !t.plantId && depth.get(t.tankId) === d).map(tank => ({
-      tank,
-      wanted: wantedFrom(schematic.pipelines.filter(p => p.toId === tank.tankId).map(p => `tank:${p.fromTankId}`)) - size.tankHeight / 2,
-    }));
+    const column = schematic.tanks.filter(t => !t.plantId && depth.get(t.tankId) === d).map(tank => {
+      const centres = schematic.pipelines.filter(p => p.toId === tank.tankId).map(p => centreOf(`tank:${p.fromTankId}`)).filter(c => c !== null);
+      const wanted = centres.length ? centres.reduce((a, b) => a + b, 0) / centres.length - size.tankHeight / 2 : size.margin;
+      return { tank, wanted };
+    });
     stack(column, () => size.tankHeight, size.rowGap + 14);
     for (const item of column) {
       boxes.set(`tank:${item.tank.tankId}`, { x: columnX[d], y: item.y, width: size.tankWidth, height: size.tankHeight });
     }
   }
 
-  // Customers on the right, near the tanks that serve them.
-  const customers = schematic.customers.map(customer => ({
-    customer,
-    wanted: wantedFrom(schematic.pipelines.filter(p => p.toId === customer.customerId).map(p => `tank:${p.fromTankId}`)) - size.customerHeight / 2,
-  }));
-  stack(customers, () => size.customerHeight, size.rowGap);
-  for (const item of customers) {
-    boxes.set(`customer:${item.customer.customerId}`, { x: customerX, y: item.y, width: size.customerWidth, height: size.customerHeight });
-  }
-
-  const bottom = Math.max(...[...boxes.values()].map(b => b.y + b.height));
+  const bottom = Math.max(size.margin, ...[...boxes.values()].map(b => b.y + b.height));
   return { boxes, width: customerX + size.customerWidth + size.margin, height: bottom + size.margin };
 }
 
