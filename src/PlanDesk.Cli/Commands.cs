@@ -10,5 +10,6 @@ internal static class Commands
         ValidateCommand.Create(),
         ServeCommand.Create(),
         KeysCommand.Create(),
+        LoadTestCommand.Create(),
     ];
 }

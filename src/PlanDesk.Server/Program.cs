@@ -36,7 +36,7 @@ public sealed class Program
 
         var app = builder.Build();
         app.UseExceptionHandler();
-        app.UseStatusCodePages();
+        app.UseStatusCodeProblems();
         app.UseBrowserDesk();
         app.UseRouting();
         app.UseAuthentication();
@@ -44,16 +44,17 @@ public sealed class Program
         app.UseBodySizeLimits();
 
         app.MapOpenApi().AllowAnonymous();
-        app.MapHealth();
-        app.MapNetworks();
-        app.MapPlans();
-        app.MapJobs();
-        app.MapPublications();
-        app.MapTargets();
-        app.MapPlantReports();
-        app.MapKeys();
-        app.MapSession();
-        app.MapPlanViews();
+        var api = app.MapGroup("").AddEndpointFilter<ProblemDetailsFilter>();
+        api.MapHealth();
+        api.MapNetworks();
+        api.MapPlans();
+        api.MapJobs();
+        api.MapPublications();
+        api.MapTargets();
+        api.MapPlantReports();
+        api.MapKeys();
+        api.MapSession();
+        api.MapPlanViews();
         return app;
     }
 }

@@ -84,7 +84,13 @@ internal sealed class CsvFiles(LoadContext context)
             return null;
         }
         var columns = header.Skip(1).ToList();
+        if (columns.GroupBy(c => c).FirstOrDefault(g => g.Count() > 1) is { } repeated)
+        {
+            context.AddIn(display, "line 1", $"the column '{repeated.Key}' appears twice in the header", "give each column its own name");
+            return null;
+        }
         var times = new List<Instant>();
+        var written = new List<string>();
         var lineNumbers = new List<int>();
         var values = columns.ToDictionary(c => c, _ => new List<double>());
         var usable = true;
@@ -103,7 +109,7 @@ internal sealed class CsvFiles(LoadContext context)
                 usable = false;
                 continue;
             }
-            if (TimeText.ParseInstant(fields[0]) is not { } time)
+            if (TimeText.ParseInstant(fields[0]) is not { } time || !TimeText.IsPlausible(time))
             {
                 context.AddIn(display, $"line {line}, column 'timestamp'", $"'{fields[0]}' is not an ISO-8601 timestamp with an offset",
                     "write it like 2027-03-26T00:00:00+01:00 or 2027-03-25T23:00:00Z");
@@ -111,6 +117,7 @@ internal sealed class CsvFiles(LoadContext context)
                 continue;
             }
             times.Add(time);
+            written.Add(fields[0]);
             lineNumbers.Add(line);
             for (var c = 0; c < columns.Count; c++)
             {
@@ -138,12 +145,12 @@ internal sealed class CsvFiles(LoadContext context)
             context.AddIn(display, "", $"has {times.Count} data row(s); a CSV series needs at least two so its step can be seen", "add rows covering the horizon");
             return null;
         }
-        var step = CheckSteps(times, lineNumbers, display, ref usable);
+        var step = CheckSteps(times, written, lineNumbers, display, ref usable);
         return new CsvTable(display, columns, times, lineNumbers, step, values.ToDictionary(v => v.Key, v => v.Value.ToArray()), usable);
     }
 
     // The step is the most common gap between rows; every other gap is a repeated, missing or out-of-order timestamp.
-    private Duration CheckSteps(List<Instant> times, List<int> lines, string display, ref bool usable)
+    private Duration CheckSteps(List<Instant> times, List<string> written, List<int> lines, string display, ref bool usable)
     {
         var gaps = Enumerable.Range(1, times.Count - 1).Select(i => times[i] - times[i - 1]).ToList();
         var step = gaps.Where(g => g > Duration.Zero).GroupBy(g => g).OrderByDescending(g => g.Count()).Select(g => g.Key).FirstOrDefault();
@@ -157,13 +164,13 @@ internal sealed class CsvFiles(LoadContext context)
             }
             usable = false;
             var (what, fix) = gap == Duration.Zero
-                ? ($"timestamp {times[i]} repeats line {lines[i - 1]}", "remove one of the two rows")
+                ? ($"timestamp {written[i]} repeats line {lines[i - 1]}", "remove one of the two rows")
                 : gap < Duration.Zero
-                    ? ($"timestamp {times[i]} is earlier than line {lines[i - 1]}", "sort the rows by time")
+                    ? ($"timestamp {written[i]} is earlier than line {lines[i - 1]}", "sort the rows by time")
                     : step > Duration.Zero && gap.BclCompatibleTicks % step.BclCompatibleTicks == 0
-                        ? ($"{gap.BclCompatibleTicks / step.BclCompatibleTicks - 1} timestamp(s) missing after line {lines[i - 1]} ({times[i - 1]} to {times[i]})",
+                        ? ($"{gap.BclCompatibleTicks / step.BclCompatibleTicks - 1} timestamp(s) missing after line {lines[i - 1]} ({written[i - 1]} to {written[i]})",
                             $"add the missing rows; the file's step is {stepText}")
-                        : ($"timestamp {times[i]} is not one step of {stepText} after line {lines[i - 1]}", $"use the same step of {stepText} throughout");
+                        : ($"timestamp {written[i]} is not one step of {stepText} after line {lines[i - 1]}", $"use the same step of {stepText} throughout");
             context.AddIn(display, $"line {lines[i]}", what, fix);
         }
         return step;

@@ -59,9 +59,10 @@ public static class NetworkLoader
         {
             utf8 = utf8[Encoding.UTF8.Preamble.Length..];
         }
-        if (JsonSyntax.Check(utf8.Span, sourceName) is { } syntax)
+        var scan = JsonSyntax.Check(utf8.Span, sourceName);
+        if (scan.Fatal is { } fatal)
         {
-            return new NetworkLoadResult(null, [syntax]);
+            return new NetworkLoadResult(null, [fatal]);
         }
         using var document = JsonDocument.Parse(utf8, new JsonDocumentOptions { MaxDepth = MaxDepth });
         var context = new LoadContext(sourceName, baseDirectory);
@@ -70,7 +71,7 @@ public static class NetworkLoader
 
         // A value the schema rejected is often rejected again by a reader; the schema's message is enough.
         var located = schemaProblems.Select(p => (p.File, p.Location)).ToHashSet();
-        var problems = schemaProblems.Concat(context.Problems.Where(p => !located.Contains((p.File, p.Location)))).Distinct().ToList();
+        var problems = scan.RepeatedFields.Concat(schemaProblems).Concat(context.Problems.Where(p => !located.Contains((p.File, p.Location)))).Distinct().ToList();
         if (problems.Count == 0 && network is not null)
         {
             problems.AddRange(DefaultHorizonCoverage(network));

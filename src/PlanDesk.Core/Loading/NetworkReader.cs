@@ -88,7 +88,9 @@ internal static class NetworkReader
 
     private static Dictionary<string, double> ReadQuality(Node qualityClass) =>
         qualityClass.Field("quality") is { IsObject: true } quality
-            ? quality.Element.EnumerateObject().Where(p => p.Value.ValueKind == JsonValueKind.Number).ToDictionary(p => p.Name, p => p.Value.GetDouble())
+            // A field named twice is reported by JsonSyntax; the last one is used meanwhile, as everywhere else.
+            ? quality.Element.EnumerateObject().Where(p => p.Value.ValueKind == JsonValueKind.Number)
+                .GroupBy(p => p.Name).ToDictionary(g => g.Key, g => g.Last().Value.GetDouble())
             : [];
 
     private static (LocalDate? Start, int Days) ReadHorizon(Node root, LoadContext context)
@@ -99,9 +101,11 @@ internal static class NetworkReader
         }
         var text = horizon.Text("startDate");
         var start = TimeText.ParseDate(text);
-        if (start is null && text.Length > 0)
+        if (start is null && text.Length > 0 || start is { } date && !TimeText.IsPlausible(date))
         {
-            context.Add(horizon.PathOf("startDate"), $"'{text}' is not a calendar date", "give the first local day planned as YYYY-MM-DD, e.g. \"2027-03-26\"");
+            context.Add(horizon.PathOf("startDate"), $"'{text}' is not a calendar date from {TimeText.FirstYear} to {TimeText.LastYear}",
+                "give the first local day planned as YYYY-MM-DD, e.g. \"2027-03-26\"");
+            return (null, horizon.Int("days", 1));
         }
         return (start, horizon.Int("days", 1));
     }

@@ -126,6 +126,18 @@ internal static class JsonPaths
         return text.Length > 60 ? text[..57] + "..." : text;
     }
 
+    /// <summary>The kind of a value in words: "text", "a number", "a list" ...</summary>
+    public static string KindOf(JsonElement? value) => value?.ValueKind switch
+    {
+        JsonValueKind.String => "text",
+        JsonValueKind.Number => "a number",
+        JsonValueKind.True or JsonValueKind.False => "true/false",
+        JsonValueKind.Object => "an object",
+        JsonValueKind.Array => "a list",
+        JsonValueKind.Null => "null",
+        _ => "missing",
+    };
+
     private static bool IsPlainName(string name) =>
         name.Length > 0 && (char.IsLetter(name[0]) || name[0] is '_' or '$') && name.All(c => char.IsLetterOrDigit(c) || c is '_' or '$');
 }

@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Text.Json;
 using Json.Schema;
 
@@ -17,16 +18,81 @@ internal static class SchemaCheck
     /// <summary>The schema as a JSON document, for reading descriptions, examples and bounds into messages.</summary>
     public static JsonElement SchemaRoot => Loaded.Value.Document.RootElement;
 
+    /// <summary>No quantity in a network file comes near this; larger numbers are typing mistakes, and the schema
+    /// library cannot compare numbers beyond the decimal range.</summary>
+    public const double MaxMagnitude = 1e15;
+
+    /// <summary>The schema's problems with <paramref name="root"/>. The values of inline series are left to
+    /// <see cref="SeriesReader"/>: a schema library keeps a result per array item, which for a week of minute values
+    /// costs gigabytes, while the reader checks them in one pass.</summary>
     public static IReadOnlyList<LoadProblem> Check(JsonElement root, string file)
     {
-        var result = Loaded.Value.Schema.Evaluate(root, new EvaluationOptions { OutputFormat = OutputFormat.Hierarchical });
-        if (result.IsValid)
+        var tooLarge = new List<LoadProblem>();
+        using var view = SchemaView(root, file, tooLarge);
+        var schema = Loaded.Value.Schema;
+        // The flag form stops at the first failure and keeps no results; the full form runs only for a bad file.
+        if (schema.Evaluate(view.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.Flag }).IsValid)
         {
-            return [];
+            return tooLarge;
         }
+        var result = schema.Evaluate(view.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.Hierarchical });
         var failures = new List<SchemaFailure>();
         Collect(result, failures);
-        return new SchemaMessages(SchemaRoot, root, file).Render(failures);
+        var replaced = tooLarge.Select(p => p.Location).ToHashSet();
+        return [.. tooLarge, .. new SchemaMessages(SchemaRoot, view.RootElement, file).Render(failures).Where(p => !replaced.Contains(p.Location))];
+    }
+
+    // A copy of the document for the schema: every non-empty "values" list holds a single 0, and every number too
+    // large to be meant is replaced by 0 and reported.
+    private static JsonDocument SchemaView(JsonElement root, string file, List<LoadProblem> tooLarge)
+    {
+        var buffer = new ArrayBufferWriter<byte>();
+        using (var writer = new Utf8JsonWriter(buffer))
+        {
+            Copy(root, JsonPaths.Root, writer, file, tooLarge);
+        }
+        return JsonDocument.Parse(buffer.WrittenMemory, new JsonDocumentOptions { MaxDepth = NetworkLoader.MaxDepth + 1 });
+    }
+
+    private static void Copy(JsonElement element, string path, Utf8JsonWriter writer, string file, List<LoadProblem> tooLarge)
+    {
+        switch (element.ValueKind)
+        {
+            case JsonValueKind.Object:
+                writer.WriteStartObject();
+                foreach (var property in element.EnumerateObject())
+                {
+                    writer.WritePropertyName(property.Name);
+                    if (property.Name == "values" && property.Value.ValueKind == JsonValueKind.Array && property.Value.GetArrayLength() > 0)
+                    {
+                        writer.WriteStartArray();
+                        writer.WriteNumberValue(0);
+                        writer.WriteEndArray();
+                    }
+                    else
+                    {
+                        Copy(property.Value, JsonPaths.Child(path, property.Name), writer, file, tooLarge);
+                    }
+                }
+                writer.WriteEndObject();
+                break;
+            case JsonValueKind.Array:
+                writer.WriteStartArray();
+                var index = 0;
+                foreach (var item in element.EnumerateArray())
+                {
+                    Copy(item, $"{path}[{index++}]", writer, file, tooLarge);
+                }
+                writer.WriteEndArray();
+                break;
+            case JsonValueKind.Number when !(Math.Abs(element.GetDouble()) <= MaxMagnitude):
+                tooLarge.Add(new LoadProblem(file, path, $"{JsonPaths.Show(element)} is far too large", "check the number; no quantity in a network file is above 1e15"));
+                writer.WriteNumberValue(0);
+                break;
+            default:
+                element.WriteTo(writer);
+                break;
+        }
     }
 
     public static string Text()

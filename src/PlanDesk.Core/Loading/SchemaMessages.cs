@@ -59,7 +59,7 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
                 }
                 yield break;
             case "type":
-                yield return Problem(path, $"{shown} is {KindOf(value)}, not {Expected(schema)}", chain);
+                yield return Problem(path, $"{shown} is {JsonPaths.KindOf(value)}, not {Expected(schema)}", chain);
                 yield break;
             case "minimum" or "maximum" or "exclusiveMinimum" or "exclusiveMaximum":
                 yield return Problem(path, $"{shown} is {Range(schema)}", chain);
@@ -119,17 +119,6 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
         var text = description.TrimEnd('.');
         return text.Length > 1 && char.IsUpper(text[0]) && (char.IsLower(text[1]) || text[1] == ' ') ? char.ToLowerInvariant(text[0]) + text[1..] : text;
     }
-
-    private static string KindOf(JsonElement? value) => value?.ValueKind switch
-    {
-        JsonValueKind.String => "text",
-        JsonValueKind.Number => "a number",
-        JsonValueKind.True or JsonValueKind.False => "true/false",
-        JsonValueKind.Object => "an object",
-        JsonValueKind.Array => "a list",
-        JsonValueKind.Null => "null",
-        _ => "missing",
-    };
 
     private static string Expected(JsonElement schema)
     {
@@ -191,11 +180,9 @@ internal sealed class SchemaMessages(JsonElement schemaRoot, JsonElement instanc
             {
                 "properties" when i + 1 < evaluationPath.Count => Child(Child(node, "properties"), evaluationPath[++i]),
                 "items" or "additionalProperties" => Child(node, segment),
-                "$ref" => node.TryGetProperty("$ref", out var r) ? Follow(r.GetString()) : null,
-                "then" or "else" or "if" or "not" => Child(node, segment),
-                "allOf" or "oneOf" or "anyOf" when i + 1 < evaluationPath.Count && int.TryParse(evaluationPath[++i], out var k) =>
-                    Child(node, segment) is { ValueKind: JsonValueKind.Array } list && k < list.GetArrayLength() ? list[k] : null,
-                _ => null,
+                "$ref" => Child(node, "$ref") is { ValueKind: JsonValueKind.String } reference ? Follow(reference.GetString()) : null,
+                "then" or "else" => Child(node, segment),
+                _ => null, // oneOf and if branches are never reported (see SchemaCheck.Collect)
             };
             if (next is not { } found)
             {

@@ -23,6 +23,8 @@ internal sealed record ValueRule(Func<double, bool> Accepts, string Problem, str
 internal static class SeriesReader
 {
     private const int MaxValueProblems = 5;
+    // Fifty years of minutes: far beyond any use, and safely inside NodaTime's range from any plausible start.
+    private const double MaxSpanMinutes = 50 * 525_600;
 
     /// <summary>The series at <paramref name="node"/>, or null when it is missing or unusable (problems reported).
     /// Every value is checked against <paramref name="rule"/>.</summary>
@@ -47,7 +49,7 @@ internal static class SeriesReader
 
     private static Series? ReadInline(Node at, LoadContext context, ValueRule rule)
     {
-        var values = at.Items("values").Select(v => v.Element.ValueKind == JsonValueKind.Number ? v.Element.GetDouble() : double.NaN).ToList();
+        var values = ReadValues(at, context);
         var stepMinutes = at.Int("stepMinutes", 0);
         var startText = at.Text("start");
         Instant? start = null;
@@ -61,11 +63,46 @@ internal static class SeriesReader
             start = instant;
         }
         Check(context, rule, values, i => (context.File, $"{at.PathOf("values")}[{i}]"));
+        if ((double)stepMinutes * values.Count > MaxSpanMinutes)
+        {
+            context.Add(at.PathOf("values"), $"{values.Count} values of {stepMinutes} min span more than {MaxSpanMinutes / 525_600} years",
+                "give the values for the weeks to be planned, not decades");
+            return null;
+        }
         if (start is null || stepMinutes < 1 || values.Count == 0 || values.Any(double.IsNaN))
         {
             return null;
         }
         return new StepSeries(start.Value, Duration.FromMinutes(stepMinutes), values) { Origin = at.Path };
+    }
+
+    // The schema does not see series values (see SchemaCheck), so their type is checked here.
+    private static List<double> ReadValues(Node series, LoadContext context)
+    {
+        var values = new List<double>();
+        var wrong = 0;
+        if (series.Field("values") is not { Element.ValueKind: JsonValueKind.Array } array)
+        {
+            return values;
+        }
+        foreach (var item in array.Element.EnumerateArray())
+        {
+            if (item.ValueKind == JsonValueKind.Number)
+            {
+                values.Add(item.GetDouble());
+                continue;
+            }
+            if (++wrong <= MaxValueProblems)
+            {
+                context.Add($"{array.Path}[{values.Count}]", $"{JsonPaths.Show(item)} is {JsonPaths.KindOf(item)}, not a number", "give a value of the series, e.g. 420");
+            }
+            values.Add(double.NaN);
+        }
+        if (wrong > MaxValueProblems)
+        {
+            context.Add(series.PathOf("values"), $"{wrong - MaxValueProblems} more values are not numbers", "give every value as a number, e.g. 420");
+        }
+        return values;
     }
 
     private static Series? ReadCsv(Node at, LoadContext context, ValueRule rule)
@@ -96,10 +133,15 @@ internal static class SeriesReader
 
     private static void Check(LoadContext context, ValueRule rule, IReadOnlyList<double> values, Func<int, (string File, string Location)> place)
     {
-        var bad = Enumerable.Range(0, values.Count).Where(i => !double.IsNaN(values[i]) && !rule.Accepts(values[i])).ToList();
+        var bad = Enumerable.Range(0, values.Count).Where(i => !double.IsNaN(values[i]) && !(Math.Abs(values[i]) <= SchemaCheck.MaxMagnitude && rule.Accepts(values[i]))).ToList();
         foreach (var i in bad.Take(MaxValueProblems))
         {
             var (file, location) = place(i);
+            if (Math.Abs(values[i]) > SchemaCheck.MaxMagnitude)
+            {
+                context.AddIn(file, location, $"{values[i]} is far too large", "check the number; no quantity in a network file is above 1e15");
+                continue;
+            }
             context.AddIn(file, location, $"{values[i]} {rule.Problem}", rule.Fix);
         }
         if (bad.Count > MaxValueProblems)

@@ -20,6 +20,16 @@ internal static class TimeText
         OffsetDateTimePattern.CreateWithInvariantCulture("uuuu'-'MM'-'dd'T'HH':'mm':'ss.FFFFFFFFFo<G>"),
     ];
 
+    /// <summary>Dates and instants outside these years are typing mistakes (and would overflow time arithmetic).</summary>
+    public const int FirstYear = 1900;
+    public const int LastYear = 2200;
+
+    public static bool IsPlausible(LocalDate date) => date.Year is >= FirstYear and <= LastYear;
+
+    public static bool IsPlausible(Instant instant) => IsPlausible(instant.InUtc().Date);
+
+    public static string PlausibleRange => $"a date from {FirstYear} to {LastYear}";
+
     public static LocalDate? ParseDate(string text) => Date.Parse(text) is { Success: true } r ? r.Value : null;
 
     public static LocalTime? ParseTimeOfDay(string text) => TimeOfDay.Parse(text) is { Success: true } r ? r.Value : null;
@@ -34,11 +44,15 @@ internal static class TimeText
     {
         if (ParseInstant(text) is { } instant)
         {
-            return (instant, null);
+            return IsPlausible(instant) ? (instant, null) : (null, $"is not {PlausibleRange}");
         }
         if (Local.Select(p => p.Parse(text)).FirstOrDefault(r => r.Success) is not { } local)
         {
             return (null, "is not a date and time like 2027-03-26T00:00 or 2027-03-26T00:00+01:00");
+        }
+        if (!IsPlausible(local.Value.Date))
+        {
+            return (null, $"is not {PlausibleRange}");
         }
         var mapping = zone.MapLocal(local.Value);
         return mapping.Count switch

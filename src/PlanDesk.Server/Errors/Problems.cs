@@ -1,4 +1,5 @@
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Http.Metadata;
 using Microsoft.AspNetCore.Mvc;
 
 namespace PlanDesk.Server;
@@ -44,5 +45,20 @@ internal static class ProblemResponses
             HttpContext = context,
             ProblemDetails = Problems.Details(status, title, detail),
         });
+    }
+}
+
+/// <summary>
+/// Handlers declare their errors as typed results (<c>NotFound&lt;ProblemDetails&gt;</c> ...), which document each
+/// status in the OpenAPI document; this filter sends them as <c>application/problem+json</c> through the
+/// problem-details service, like every other error of the service.
+/// </summary>
+internal sealed class ProblemDetailsFilter : IEndpointFilter
+{
+    public async ValueTask<object?> InvokeAsync(EndpointFilterInvocationContext context, EndpointFilterDelegate next)
+    {
+        var result = await next(context);
+        var inner = result is INestedHttpResult nested ? nested.Result : result;
+        return inner is IValueHttpResult { Value: ProblemDetails problem } ? TypedResults.Problem(problem) : result;
     }
 }

@@ -75,18 +75,28 @@ internal sealed partial class RequestErrorHandler(ILogger<RequestErrorHandler> l
         return $"{where}{line}: {message} Fix the JSON and send the request again.";
     }
 
-    private static string Expected(string typeName) => typeName switch
+    private static string Expected(string typeName)
     {
-        _ when typeName.EndsWith("Double") || typeName.EndsWith("Single") || typeName.EndsWith("Decimal") => "a number",
-        _ when typeName.Contains("Int") => "a whole number",
-        _ when typeName.EndsWith("String") || typeName.StartsWith("PlanDesk.Core.Model.") => "a string",
-        _ when typeName.EndsWith("Boolean") => "true or false",
-        _ when typeName.Contains("LocalDate") => "a date like 2027-03-26",
-        _ when typeName.Contains("Instant") => "a UTC time like 2027-03-26T05:00:00Z",
-        _ when typeName.Contains("Dictionary") => "an object of names and values",
-        _ when typeName.Contains("List") || typeName.EndsWith("[]") => "an array",
-        _ => "an object with the documented fields",
-    };
+        if (NullableOf().Match(typeName) is { Success: true } nullable)
+        {
+            return Expected(nullable.Groups[1].Value);
+        }
+        return typeName switch
+        {
+            _ when typeName.Contains("Dictionary") => "an object of names and values",
+            _ when typeName.Contains("List") || typeName.EndsWith("[]") => "an array",
+            _ when typeName.EndsWith("Double") || typeName.EndsWith("Single") || typeName.EndsWith("Decimal") => "a number",
+            _ when typeName.Contains("Int") => "a whole number",
+            _ when typeName.EndsWith("String") || typeName.StartsWith("PlanDesk.Core.Model.") => "a string",
+            _ when typeName.EndsWith("Boolean") => "true or false",
+            _ when typeName.Contains("LocalDate") => "a date like 2027-03-26",
+            _ when typeName.Contains("Instant") => "a UTC time like 2027-03-26T05:00:00Z",
+            _ => "an object with the documented fields",
+        };
+    }
+
+    [GeneratedRegex(@"^System\.Nullable`1\[(.+)\]$")]
+    private static partial Regex NullableOf();
 
     [GeneratedRegex(@"could not be converted to ([^\s]+?)\.?$")]
     private static partial Regex ConvertedTo();

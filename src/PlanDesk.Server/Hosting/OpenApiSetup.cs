@@ -35,9 +35,29 @@ internal static class OpenApiSetup
                 "local regulations and licensed operators decide.";
             return Task.CompletedTask;
         });
+        options.AddOperationTransformer((operation, _, _) =>
+        {
+            // Every error answer is problem details; say so with its own media type.
+            foreach (var (status, response) in operation.Responses ?? [])
+            {
+                if (status[0] is '4' or '5' && response.Content is { } content && content.Remove("application/json", out var json))
+                {
+                    content["application/problem+json"] = json;
+                }
+            }
+            return Task.CompletedTask;
+        });
         options.AddSchemaTransformer((schema, context, _) =>
         {
             var type = context.JsonTypeInfo.Type;
+            // Plans may hold NaN for an unknown bound, so the API writes named floating-point values; requests
+            // must send plain numbers, which is what the document shows.
+            if ((Nullable.GetUnderlyingType(type) ?? type) == typeof(double) && schema.AnyOf is { Count: > 0 })
+            {
+                schema.Type = Nullable.GetUnderlyingType(type) is null ? JsonSchemaType.Number : JsonSchemaType.Number | JsonSchemaType.Null;
+                schema.AnyOf = null;
+                return Task.CompletedTask;
+            }
             var underlying = Nullable.GetUnderlyingType(type);
             if (StringTypes.TryGetValue(underlying ?? type, out var described))
             {

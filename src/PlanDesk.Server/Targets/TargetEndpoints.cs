@@ -19,7 +19,8 @@ internal static class TargetEndpoints
     {
         var group = app.MapGroup("/api/plants/{plantId}/targets").WithTags("Targets").RequireAuthorization(Access.PlantRead);
         group.MapGet("/{date}", GetCurrent)
-            .Produces<string>(StatusCodes.Status200OK, "text/csv")
+            .Produces<TargetsResponse>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .Produces(StatusCodes.Status304NotModified)
             .WithSummary("The current targets of a plant for a local day (JSON, or CSV with Accept: text/csv); 304 when If-None-Match matches.");
         group.MapGet("/{date}/versions", ListVersions).WithSummary("Every published version of the plant-day, oldest first.");
         group.MapGet("/{date}/versions/{version:int}", GetVersion).WithSummary("One published version of the plant-day.");

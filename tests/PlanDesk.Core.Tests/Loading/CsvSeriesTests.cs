@@ -137,4 +137,12 @@ public sealed class CsvSeriesTests : IDisposable
 
         Assert.Contains("was not read from a folder", ProblemAt(result, "$.plants[0].influentM3PerHour.csv").What);
     }
+
+    [Fact]
+    public void RepeatedColumnNameInTheHeaderIsRejected()
+    {
+        var result = LoadWithCsv(Influent().Replace(Header, "timestamp,larkmoor,larkmoor"));
+
+        Assert.Contains("the column 'larkmoor' appears twice in the header", ProblemAt(result, "line 1").What);
+    }
 }

@@ -135,6 +135,14 @@ public class FieldRuleTests
     }
 
     [Fact]
+    public void InlineSeriesWithoutValuesIsRejected()
+    {
+        var result = LoadChanged(n => Plant(n)["influentM3PerHour"]!["values"] = new JsonArray());
+
+        Assert.Contains("the list has 0 entries but needs at least 1", ProblemAt(result, "$.plants[0].influentM3PerHour.values").What);
+    }
+
+    [Fact]
     public void NegativeInfluentValueIsReportedAtItsIndex()
     {
         var result = LoadChanged(n => Plant(n)["influentM3PerHour"]!["values"]![2] = -450);
@@ -167,5 +175,31 @@ public class FieldRuleTests
         var problem = ProblemAt(result, "$.tariffs[0].timeOfUse.seasons[0].windows[0].to");
         Assert.Contains("not in the expected form", problem.What);
         Assert.Contains("HH:mm", problem.Fix);
+    }
+
+    [Fact]
+    public void AbsurdlyLargeNumberIsReportedAsATypingMistake()
+    {
+        var result = LoadChanged(n => Stage(n)["energyKWhPerM3"] = 1e308);
+
+        Assert.Contains("is far too large", ProblemAt(result, "$.plants[0].stages[0].energyKWhPerM3").What);
+    }
+
+    [Fact]
+    public void EmptyReferenceIsReportedAsEmpty()
+    {
+        var result = LoadChanged(n => Plant(n)["tariff"] = "");
+
+        var problem = ProblemAt(result, "$.plants[0].tariff");
+        Assert.Equal("\"\" is empty", problem.What);
+        Assert.Contains("the id of the plant's tariff", problem.Fix);
+    }
+
+    [Fact]
+    public void StartDateFarInTheFutureIsRejected()
+    {
+        var result = LoadChanged(n => n["horizon"]!["startDate"] = "9999-12-31");
+
+        Assert.Contains("is not a calendar date from 1900 to 2200", ProblemAt(result, "$.horizon.startDate").What);
     }
 }

@@ -81,6 +81,33 @@ public sealed class FileLimitTests : IDisposable
     }
 
     [Fact]
+    public void BytesThatAreNotUtf8AreReportedWhereTheyAre()
+    {
+        var bytes = "{\n  \"name\": \"Lark"u8.ToArray().Concat(new byte[] { 0xFF }).Concat("moor\"\n}"u8.ToArray()).ToArray();
+
+        var path = Path.Combine(folder.Path, "latin1.json");
+        File.WriteAllBytes(path, bytes);
+
+        var result = NetworkLoader.Load(path);
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal("line 2, column 16", problem.Location);
+        Assert.Equal("byte 0xFF is not UTF-8 text", problem.What);
+    }
+
+    [Fact]
+    public void FieldNamedTwiceInOneObjectIsReportedAtTheSecond()
+    {
+        var text = File.ReadAllText(TestNetworks.QuickstartPath).Replace("\"currency\": \"EUR\",", "\"currency\": \"EUR\", \"currency\": \"USD\",");
+
+        var result = NetworkLoader.LoadText(text, "networks/twice.json", TestNetworks.NetworksFolder);
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal("line 4, column 22", problem.Location);
+        Assert.Contains("the field 'currency' appears twice", problem.What);
+    }
+
+    [Fact]
     public void RootThatIsNotAnObjectIsAWrongType()
     {
         var result = NetworkLoader.LoadText("[1, 2]", "networks/list.json", null);

@@ -18,9 +18,9 @@ public static class TestApi
 
     public static string TwoPlantNetworkJson { get; } = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "TestData", "two-plants.json"));
 
-    public static StringContent Json(string json) => new(json, Encoding.UTF8, "application/json");
+    public static StringContent JsonBody(string json) => new(json, Encoding.UTF8, "application/json");
 
-    public static StringContent Json<T>(T value) => Json(JsonSerializer.Serialize(value, ServerJson.Options));
+    public static StringContent JsonBody<T>(T value) => JsonBody(JsonSerializer.Serialize(value, ServerJson.Options));
 
     public static async Task<T> ReadAsync<T>(HttpResponseMessage response, HttpStatusCode expected)
     {
@@ -31,14 +31,14 @@ public static class TestApi
 
     public static async Task UploadNetworkAsync(HttpClient scheduler, string networkId = NetworkId)
     {
-        var response = await scheduler.PostAsync($"/api/networks/{networkId}/versions", Json(TwoPlantNetworkJson));
+        var response = await scheduler.PostAsync($"/api/networks/{networkId}/versions", JsonBody(TwoPlantNetworkJson));
         var body = await response.Content.ReadAsStringAsync();
         Assert.True(response.StatusCode == HttpStatusCode.Created, $"upload failed ({(int)response.StatusCode}): {body}");
     }
 
     public static async Task<JobResponse> SubmitAsync(HttpClient scheduler, LocalDate startDate, int days = 1, string networkId = NetworkId)
     {
-        var response = await scheduler.PostAsync("/api/plans", Json(new SolveRequest { NetworkId = networkId, StartDate = startDate, Days = days }));
+        var response = await scheduler.PostAsync("/api/plans", JsonBody(new SolveRequest { NetworkId = networkId, StartDate = startDate, Days = days }));
         return await ReadAsync<JobResponse>(response, HttpStatusCode.Accepted);
     }
 
@@ -67,17 +67,17 @@ public static class TestApi
     }
 
     public static async Task<PublicationResponse> PublishAsync(HttpClient scheduler, long planId) =>
-        await ReadAsync<PublicationResponse>(await scheduler.PostAsync($"/api/plans/{planId}/publish", Json("{}")), HttpStatusCode.Created);
+        await ReadAsync<PublicationResponse>(await scheduler.PostAsync($"/api/plans/{planId}/publish", JsonBody("{}")), HttpStatusCode.Created);
 
     public static HttpRequestMessage Acknowledgement(string plantId, LocalDate date, int version, string idempotencyKey, string? by = "night shift") =>
         new(HttpMethod.Post, $"/api/plants/{plantId}/targets/{date:uuuu-MM-dd}/acknowledgements")
         {
-            Content = Json(new AcknowledgementRequest { Version = version, AcknowledgedBy = by }),
+            Content = JsonBody(new AcknowledgementRequest { Version = version, AcknowledgedBy = by }),
             Headers = { { "Idempotency-Key", idempotencyKey } },
         };
 
     public static HttpRequestMessage Actuals(string plantId, ActualsRequest report, string idempotencyKey) =>
-        new(HttpMethod.Post, $"/api/plants/{plantId}/actuals") { Content = Json(report), Headers = { { "Idempotency-Key", idempotencyKey } } };
+        new(HttpMethod.Post, $"/api/plants/{plantId}/actuals") { Content = JsonBody(report), Headers = { { "Idempotency-Key", idempotencyKey } } };
 
     /// <summary>Hours of plausible actuals starting at <paramref name="firstHour"/>.</summary>
     public static ActualsRequest SomeActuals(Instant firstHour, int hours, double influentM3 = 480) => new()
