@@ -8,6 +8,7 @@ internal static class Commands
     public static IEnumerable<Command> All() =>
     [
         ValidateCommand.Create(),
+        SolveCommand.Create(),
         ServeCommand.Create(),
         KeysCommand.Create(),
         LoadTestCommand.Create(),

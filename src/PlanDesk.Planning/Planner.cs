@@ -1,5 +1,6 @@
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
+using PlanDesk.Planning.Solving;
 
 namespace PlanDesk.Planning;
 
@@ -11,7 +12,10 @@ public sealed record SolveOptions
     public double TimeLimitSeconds { get; init; } = 60;
     /// <summary>Relative gap at which the search stops, percent.</summary>
     public double GapPercent { get; init; } = 0.5;
+    /// <summary>Threads for HiGHS (SCIP always runs one). HiGHS fixes its thread count at the first solve of a process.</summary>
     public int Threads { get; init; } = 2;
+    /// <summary>Compute marginal water costs and binding limits after the MILP (a fixed-integer LP re-solve).</summary>
+    public bool Explain { get; init; } = true;
 }
 
 /// <summary>What a long solve reports while it runs; fields the backend does not expose are null.</summary>
@@ -20,7 +24,8 @@ public sealed record SolveProgress(string Phase, double ElapsedSeconds, double T
 /// <summary>Builds the MILP for a planning case, solves it and extracts the plan.</summary>
 public static class Planner
 {
-    /// <summary>Always returns a plan record; when the solver found none, <c>Solve.Status</c> is noPlan and its arrays are empty.</summary>
+    /// <summary>Always returns a plan record; when the solver found none, <c>Solve.Status</c> is noPlan and its arrays are empty.
+    /// Cancelling stops SCIP at once and HiGHS after its current solve; it then throws <see cref="OperationCanceledException"/>.</summary>
     public static Plan Solve(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress = null, CancellationToken cancellation = default) =>
-        throw new NotImplementedException("the planner is being written (issue 3)");
+        new SolveRun(planningCase, options, progress, cancellation).Execute();
 }

@@ -56,6 +56,9 @@ public sealed record Penalties
     public double OutfallExcessPerM3 { get; init; } = 20.0;
     /// <summary>Per m3 a tank ends the horizon below its starting volume.</summary>
     public double TankEndDeficitPerM3 { get; init; } = 0.5;
+    /// <summary>Per m3 a tank is below its minimum or above its maximum in a period: only when the data allow
+    /// nothing else (a tank that starts outside its limits, or losses with no way to refill).</summary>
+    public double TankLimitPerM3 { get; init; } = 10.0;
 }
 
 /// <summary>A reclaimed-water quality class with its nominal quality.</summary>

@@ -127,10 +127,12 @@ public sealed record CostBreakdown
     public double PermitPenalty { get; init; }
     public double OutfallPenalty { get; init; }
     public double TankEndPenalty { get; init; }
+    /// <summary>Penalty on tank volumes outside their minimum and maximum (only when the data leave no other way).</summary>
+    public double TankLimitPenalty { get; init; }
 
     /// <summary>Money actually paid: energy, demand charge, starts, chemicals and carbon.</summary>
     public double Operating => EnergyImport - EnergyExportCredit + DemandCharge + UnitStarts + Chemicals + Carbon;
-    public double Penalties => ShortfallPenalty + BypassPenalty + PermitPenalty + OutfallPenalty + TankEndPenalty;
+    public double Penalties => ShortfallPenalty + BypassPenalty + PermitPenalty + OutfallPenalty + TankEndPenalty + TankLimitPenalty;
     /// <summary>The objective: operating cost plus penalties.</summary>
     public double Total => Operating + Penalties;
 }

@@ -1,0 +1,144 @@
+using System.Globalization;
+using Google.OrTools.LinearSolver;
+using PlanDesk.Core.Model;
+
+namespace PlanDesk.Planning.Model;
+
+// Discharge permits: outfall flow and the daily and monthly nutrient loads.
+internal sealed partial class PlanModel
+{
+    public Dictionary<(PlantId Plant, int Period), Variable> OutfallExcess { get; } = [];
+    /// <summary>W[p,d,m]: the day's nutrient-bearing outfall volume if level m runs, else 0, m3.</summary>
+    public Dictionary<(PlantId Plant, int Day, LevelId Level), Variable> NutrientVolumeAtLevel { get; } = [];
+    public Dictionary<(PlantId Plant, string Nutrient, int Day), Variable> DailyLoadExcess { get; } = [];
+    public Dictionary<(PlantId Plant, string Nutrient, int Month), Variable> MonthlyLoadExcess { get; } = [];
+
+    /// <summary>outfall = secondary effluent to outfall + Σ (1 − recovery)·feed + bypass ≤ max outfall flow·Δh + excess.</summary>
+    private void AddOutfallFlowLimits()
+    {
+        foreach (var plant in Network.Plants.Where(p => p.Permit.MaxOutfallM3PerHour.HasValue))
+        {
+            var maxM3 = plant.Permit.MaxOutfallM3PerHour!.Value * PeriodHours;
+            foreach (var period in Horizon.Periods)
+            {
+                var t = period.Index;
+                var excess = NumVar(0, double.PositiveInfinity, Name("outfall-excess", plant.Id, P(t)));
+                OutfallExcess[(plant.Id, t)] = excess;
+                var row = AtMostRow(maxM3, Name("outfall-max", plant.Id, P(t)))
+                    .Add(SecondaryToOutfall[(plant.Id, t)], 1)
+                    .Add(Bypass[(plant.Id, t)], 1)
+                    .Add(excess, -1);
+                foreach (var stage in plant.Stages)
+                {
+                    row.Add(Feed[(stage.Id, t)], 1 - stage.RecoveryFraction);
+                }
+                Costs.Add(CostComponent.OutfallPenalty, excess, Penalties.OutfallExcessPerM3);
+            }
+        }
+    }
+
+    /// <summary>
+    /// Exact linear daily and monthly load caps. The day's nutrient-bearing outfall volume W[d] (secondary effluent
+    /// to the outfall + Σ rejection fraction × feed of nutrient-rejecting stages) is split by level,
+    /// W[d] = Σm W[d,m] with W[d,m] ≤ Wmax·y[d,m], so load = Σm c_m·W[d,m]/1000 + raw·bypass/1000 kg is linear.
+    /// Water delivered to customers carries its nutrients away, which is how reuse relieves the permit.
+    /// The monthly cap of the start month is reduced by the month-to-date load; a later month gets its full cap.
+    /// </summary>
+    private void AddPermitLoadCaps()
+    {
+        foreach (var plant in Network.Plants)
+        {
+            var nutrients = PermitNutrient.Of(plant).Where(n => n.Capped).ToList();
+            if (nutrients.Count == 0)
+            {
+                continue;
+            }
+            AddNutrientVolumeSplit(plant);
+            foreach (var nutrient in nutrients)
+            {
+                AddNutrientCaps(plant, nutrient);
+            }
+        }
+    }
+
+    private void AddNutrientVolumeSplit(Plant plant)
+    {
+        var rejecting = PermitNutrient.RejectingStages(Network, plant).ToList();
+        var influent = Case.InfluentM3[plant.Id];
+        foreach (var day in Horizon.Days)
+        {
+            var date = DayLabel(day.Index);
+            // Wmax: secondary effluent never exceeds influent; tank-fed stages add at most their full feed.
+            var maxM3 = day.PeriodIndices.Sum(t => influent[t] + rejecting.Where(s => s.FeedTank is not null)
+                .Sum(s => s.NutrientRejectionFraction * s.UnitMaxFlowM3PerHour * PeriodHours * Case.AvailableUnits[s.Id][t]));
+            var split = EqualRow(0, Name("nutrient-volume", plant.Id, date));
+            foreach (var t in day.PeriodIndices)
+            {
+                split.Add(SecondaryToOutfall[(plant.Id, t)], 1);
+                foreach (var stage in rejecting)
+                {
+                    split.Add(Feed[(stage.Id, t)], stage.NutrientRejectionFraction);
+                }
+            }
+            foreach (var level in AllowedLevels[plant.Id])
+            {
+                var atLevel = NumVar(0, maxM3, Name("nutrient-volume-at", plant.Id, date, level.Id));
+                NutrientVolumeAtLevel[(plant.Id, day.Index, level.Id)] = atLevel;
+                split.Add(atLevel, -1);
+                AtMostRow(0, Name("nutrient-volume-gate", plant.Id, date, level.Id))
+                    .Add(atLevel, 1)
+                    .Add(LevelOn[(plant.Id, day.Index, level.Id)], -maxM3);
+            }
+        }
+    }
+
+    private void AddNutrientCaps(Plant plant, PermitNutrient nutrient)
+    {
+        if (nutrient.DailyCapKg is { } dailyCap)
+        {
+            foreach (var day in Horizon.Days)
+            {
+                var excess = NumVar(0, double.PositiveInfinity, Name($"{nutrient.Key}-daily-excess", plant.Id, DayLabel(day.Index)));
+                DailyLoadExcess[(plant.Id, nutrient.Key, day.Index)] = excess;
+                var row = AtMostRow(dailyCap, Name($"{nutrient.Key}-daily", plant.Id, DayLabel(day.Index))).Add(excess, -1);
+                AddDayLoad(row, plant, nutrient, day);
+                Costs.Add(CostComponent.PermitPenalty, excess, Penalties.PermitExcessPerKg);
+            }
+        }
+        if (nutrient.MonthlyCapKg is { } monthlyCap)
+        {
+            foreach (var month in Horizon.Days.GroupBy(d => Case.BillingMonth[d.FirstPeriod]))
+            {
+                var label = MonthLabel(month.Key);
+                var allowance = month.Key == 0 ? monthlyCap - nutrient.MonthToDateKg : monthlyCap;
+                var excess = NumVar(0, double.PositiveInfinity, Name($"{nutrient.Key}-monthly-excess", plant.Id, label));
+                MonthlyLoadExcess[(plant.Id, nutrient.Key, month.Key)] = excess;
+                var row = AtMostRow(allowance, Name($"{nutrient.Key}-monthly", plant.Id, label)).Add(excess, -1);
+                foreach (var day in month)
+                {
+                    AddDayLoad(row, plant, nutrient, day);
+                }
+                Costs.Add(CostComponent.PermitPenalty, excess, Penalties.PermitExcessPerKg);
+            }
+        }
+    }
+
+    // kg = mg/L × m3 / 1000.
+    private void AddDayLoad(Constraint row, Plant plant, PermitNutrient nutrient, PlanDay day)
+    {
+        foreach (var level in AllowedLevels[plant.Id])
+        {
+            row.Add(NutrientVolumeAtLevel[(plant.Id, day.Index, level.Id)], nutrient.EffluentMgPerL(level) / 1000.0);
+        }
+        foreach (var t in day.PeriodIndices)
+        {
+            row.Add(Bypass[(plant.Id, t)], nutrient.RawMgPerL / 1000.0);
+        }
+    }
+
+    private string MonthLabel(int month)
+    {
+        var first = Horizon.Periods.First(p => Case.BillingMonth[p.Index] == month).LocalStart;
+        return first.ToString("yyyy-MM", CultureInfo.InvariantCulture);
+    }
+}

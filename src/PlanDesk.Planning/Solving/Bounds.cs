@@ -1,0 +1,59 @@
+using Google.OrTools.LinearSolver;
+
+namespace PlanDesk.Planning.Solving;
+
+/// <summary>The best proven lower bound on the objective, and the gap to it.</summary>
+internal static class Bounds
+{
+    // HiGHS's default absolute MIP gap: it also stops when objective − bound is below this.
+    private const double HighsAbsoluteGap = 1e-6;
+
+    /// <summary>
+    /// SCIP reports a true bound. HiGHS's wrapper reports the objective as its bound, so for HiGHS the bound is
+    /// the better of the LP relaxation's optimum and, when HiGHS says optimal, what its stopping rule proves:
+    /// it stops only once (objective − bound) ≤ max(gap·|objective|, absolute gap).
+    /// </summary>
+    /// <param name="milpObjective">The whole MILP's objective, null when it found no plan.</param>
+    /// <param name="objective">The objective of the plan kept (the MILP's or the day-by-day first plan's).</param>
+    public static double Best(string backend, Solver.ResultStatus status, double? milpObjective, double reportedBound,
+        double? relaxationBound, double gapPercent, double objective, List<string> notes)
+    {
+        if (backend == SolverBackend.Scip)
+        {
+            return milpObjective.HasValue && double.IsFinite(reportedBound) ? Math.Min(objective, reportedBound) : double.NaN;
+        }
+        var candidates = new List<(double Bound, string Source)>();
+        if (relaxationBound is { } relaxed)
+        {
+            candidates.Add((relaxed, "the LP relaxation"));
+        }
+        if (status == Solver.ResultStatus.OPTIMAL && milpObjective is { } stopped)
+        {
+            var gap = Math.Max(gapPercent, 0) / 100.0;
+            candidates.Add((stopped - Math.Max(gap * Math.Abs(stopped), HighsAbsoluteGap), $"HiGHS's stopping rule at a {gapPercent:0.###} % gap"));
+        }
+        if (candidates.Count == 0)
+        {
+            notes.Add("no proven bound is known for this plan");
+            return double.NaN;
+        }
+        var best = candidates.MaxBy(c => c.Bound);
+        notes.Add($"best bound from {best.Source}");
+        return Math.Min(objective, best.Bound);
+    }
+
+    /// <summary>(objective − bound) / |objective| in percent; 0 when both are 0, NaN without a bound.</summary>
+    public static double GapPercent(double objective, double bound)
+    {
+        if (double.IsNaN(bound))
+        {
+            return double.NaN;
+        }
+        var difference = Math.Max(0, objective - bound);
+        if (Math.Abs(objective) < 1e-9)
+        {
+            return difference < 1e-9 ? 0 : double.NaN;
+        }
+        return 100.0 * difference / Math.Abs(objective);
+    }
+}

@@ -1,0 +1,191 @@
+using Google.OrTools.LinearSolver;
+using PlanDesk.Core.Model;
+using PlanDesk.Planning.Model;
+
+namespace PlanDesk.Planning.Solving;
+
+/// <summary>A solved model and the solver that holds its values; dispose it when the plan has been read.</summary>
+internal sealed record SolvedModel(Solver Solver, PlanModel Model, double Objective, Solver.ResultStatus Status) : IDisposable
+{
+    public void Dispose() => Solver.Dispose();
+}
+
+/// <summary>
+/// A first plan from the LP relaxation: its on/off decisions rounded (each day's most-chosen level; enough units
+/// and pumps for the relaxed flows, with runs stretched to their minimum run time), then the flows re-solved as
+/// an LP with those decisions fixed. When that LP fails, every unit and pump is switched off instead, which the
+/// slacks always make feasible. It is the safety net of the whole MILP (a plan even when the MILP finds none in
+/// time, as under heavy machine load) and SCIP's starting solution.
+/// </summary>
+internal static class FirstPlan
+{
+    private const double Tolerance = 1e-6;
+
+    // Rounds of switching plant-days over a daily cap to the next tighter level.
+    private const int LevelRepairRounds = 3;
+
+    public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes)
+    {
+        var rounded = Round(relaxed);
+        var plan = SolveFixed(planningCase, rounded, options, timeLimitSeconds, notes);
+        if (plan is not null)
+        {
+            return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds, notes);
+        }
+        notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
+        var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
+        return SolveFixed(planningCase, levelsOnly, options, timeLimitSeconds, notes);
+    }
+
+    /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
+    /// move to the next tighter level while that makes the plan cheaper.</summary>
+    private static SolvedModel TightenLevelsOverCaps(PlanningCase planningCase, SolvedModel plan, Dictionary<string, double> values,
+        SolveOptions options, double timeLimitSeconds, List<string> notes)
+    {
+        for (var round = 0; round < LevelRepairRounds; round++)
+        {
+            var tighter = new Dictionary<string, double>(values);
+            var changed = false;
+            foreach (var ((plantId, nutrientKey, day), excess) in plan.Model.DailyLoadExcess)
+            {
+                if (excess.SolutionValue() <= Tolerance)
+                {
+                    continue;
+                }
+                var plant = planningCase.Network.Plant(plantId);
+                var nutrient = PermitNutrient.Of(plant).First(n => n.Key == nutrientKey);
+                var levels = plan.Model.AllowedLevels[plantId].OrderBy(nutrient.EffluentMgPerL).ToList();
+                var name = (TreatmentLevel level) => plan.Model.LevelOn[(plantId, day, level.Id)].Name();
+                var current = levels.FindIndex(l => tighter[name(l)] > 0.5);
+                if (current > 0)
+                {
+                    tighter[name(levels[current])] = 0;
+                    tighter[name(levels[current - 1])] = 1;
+                    changed = true;
+                }
+            }
+            if (!changed)
+            {
+                break;
+            }
+            var candidate = SolveFixed(planningCase, tighter, options, timeLimitSeconds, notes);
+            if (candidate is null || candidate.Objective >= plan.Objective - Tolerance)
+            {
+                candidate?.Dispose();
+                break;
+            }
+            plan.Dispose();
+            (plan, values) = (candidate, tighter);
+        }
+        return plan;
+    }
+
+    private static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,
+        double timeLimitSeconds, List<string> notes)
+    {
+        var solver = SolverBackend.CreateRelaxation(options, timeLimitSeconds, notes);
+        var model = PlanModel.Build(solver, planningCase, IntegerMode.Fixed, values);
+        var status = solver.Solve();
+        if (status != Solver.ResultStatus.OPTIMAL)
+        {
+            solver.Dispose();
+            return null;
+        }
+        return new SolvedModel(solver, model, solver.Objective().Value(), status);
+    }
+
+    /// <summary>Integer values by variable name rounded from a solved relaxation.</summary>
+    internal static Dictionary<string, double> Round(PlanModel relaxed)
+    {
+        var planningCase = relaxed.Case;
+        var network = planningCase.Network;
+        var hours = planningCase.PeriodHours;
+        var values = new Dictionary<string, double>();
+        foreach (var plant in network.Plants)
+        {
+            var levels = relaxed.AllowedLevels[plant.Id];
+            foreach (var day in planningCase.Horizon.Days)
+            {
+                var chosen = levels.MaxBy(l => relaxed.LevelOn[(plant.Id, day.Index, l.Id)].SolutionValue())!;
+                foreach (var level in levels)
+                {
+                    values[relaxed.LevelOn[(plant.Id, day.Index, level.Id)].Name()] = level == chosen ? 1 : 0;
+                }
+            }
+        }
+        foreach (var stage in network.Stages)
+        {
+            var available = planningCase.AvailableUnits[stage.Id];
+            var units = Enumerable.Range(0, planningCase.PeriodCount)
+                .Select(t => UnitsFor(relaxed.Feed[(stage.Id, t)].SolutionValue(), stage.UnitMinFlowM3PerHour * hours,
+                    stage.UnitMaxFlowM3PerHour * hours, available[t]))
+                .ToArray();
+            var minRunPeriods = (int)Math.Ceiling(stage.MinRunHours / hours - 1e-9);
+            KeepMinimumRun(units, stage.InitialUnitsRunning, minRunPeriods, available);
+            for (var t = 0; t < units.Length; t++)
+            {
+                values[relaxed.Units[(stage.Id, t)].Name()] = units[t];
+            }
+        }
+        foreach (var pipeline in network.Pipelines.Where(l => l.Pumps is not null))
+        {
+            var pumps = pipeline.Pumps!;
+            for (var t = 0; t < planningCase.PeriodCount; t++)
+            {
+                var flow = relaxed.Flow[(pipeline.Id, t)].SolutionValue();
+                values[relaxed.PumpsOn[(pipeline.Id, t)].Name()] =
+                    UnitsFor(flow, pumps.MinFlowM3PerHour * hours, pumps.MaxFlowM3PerHour * hours, pumps.Count);
+            }
+        }
+        return values;
+    }
+
+    /// <summary>Identical units (or pumps) for a relaxed flow: enough to carry it when their minimum allows;
+    /// otherwise the count that changes the flow least (fewer units carrying less, or more forced to carry more).</summary>
+    internal static int UnitsFor(double flow, double minPerUnit, double maxPerUnit, int available)
+    {
+        if (flow <= Tolerance || maxPerUnit <= 0 || available <= 0)
+        {
+            return 0;
+        }
+        var enough = Math.Min(available, (int)Math.Ceiling(flow / maxPerUnit - Tolerance));
+        if (minPerUnit * enough <= flow + Tolerance)
+        {
+            return enough;
+        }
+        var fewer = Math.Min(available, (int)Math.Floor(flow / minPerUnit + Tolerance));
+        var flowLost = flow - maxPerUnit * fewer;
+        var flowAdded = minPerUnit * enough - flow;
+        return flowLost <= flowAdded ? fewer : enough;
+    }
+
+    /// <summary>Makes a unit schedule keep the minimum run: every unit started in the last L periods still runs
+    /// (n[t] ≥ Σ starts over the last L). Runs are stretched; a start that would run into an outage is cancelled.</summary>
+    internal static void KeepMinimumRun(int[] units, int initialUnits, int minRunPeriods, int[] available)
+    {
+        if (minRunPeriods < 2)
+        {
+            return;
+        }
+        var starts = new int[units.Length];
+        for (var t = 0; t < units.Length; t++)
+        {
+            var first = Math.Max(0, t - minRunPeriods + 1);
+            var stillRunning = Enumerable.Range(first, t - first).Sum(back => starts[back]);
+            // Cancel the latest starts the outage leaves no room for: those units never start.
+            for (var back = t - 1; back >= first && stillRunning > available[t]; back--)
+            {
+                var cancel = Math.Min(stillRunning - available[t], starts[back]);
+                for (var later = back; later < t; later++)
+                {
+                    units[later] -= cancel;
+                }
+                starts[back] -= cancel;
+                stillRunning -= cancel;
+            }
+            // stillRunning ≤ units[t − 1], so raising to it starts nothing new.
+            units[t] = Math.Max(units[t], stillRunning);
+            starts[t] = Math.Max(0, units[t] - (t == 0 ? initialUnits : units[t - 1]));
+        }
+    }
+}
