@@ -24,7 +24,13 @@ internal sealed class LoaderNetworkReader : INetworkReader
     }
 }
 
-// Placeholders until the checker, baseline and sheet builder land on main.
+/// <summary>Core's per-plant, per-local-day target sheets behind <see cref="ITargetSheetBuilder"/>.</summary>
+internal sealed class CoreSheetBuilder : ITargetSheetBuilder
+{
+    public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => PlantDayTargetsBuilder.Build(planningCase, plan);
+}
+
+// Placeholder until the checker and the baseline land on main.
 
 internal sealed class PendingReviewer : IPlanReviewer
 {
@@ -32,9 +38,4 @@ internal sealed class PendingReviewer : IPlanReviewer
         new(false, [new CheckFinding("notChecked", "", "this build has no plan checker yet", null, null)]);
 
     public double? BaselineCost(PlanningCase planningCase) => null;
-}
-
-internal sealed class PendingSheetBuilder : ITargetSheetBuilder
-{
-    public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => [];
 }

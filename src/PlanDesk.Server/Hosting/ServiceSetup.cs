@@ -53,7 +53,7 @@ internal static class ServiceSetup
         services.TryAddSingleton<INetworkReader, LoaderNetworkReader>();
         services.TryAddSingleton<IPlanSolver, PlannerSolver>();
         services.TryAddSingleton<IPlanReviewer, PendingReviewer>();
-        services.TryAddSingleton<ITargetSheetBuilder, PendingSheetBuilder>();
+        services.TryAddSingleton<ITargetSheetBuilder, CoreSheetBuilder>();
         services.AddSingleton<NetworkCatalog>();
         services.AddSingleton<PlanPipeline>();
         services.AddSingleton<SolveJobQueue>();
