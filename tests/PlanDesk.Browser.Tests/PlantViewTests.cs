@@ -41,16 +41,16 @@ public sealed class PlantViewTests(DeskFixture desk)
         await today.GetByRole(AriaRole.Button, new() { Name = "Acknowledge version 1" }).ClickAsync();
         await Expect(today).ToContainTextAsync("Version 1 acknowledged");
         await Expect(today).ToContainTextAsync("by shift lead");
-        await page.ScreenshotAsync("13-plant-view");
+        await page.ScreenshotAsync("14-plant-view");
         await page.Page.EmulateMediaAsync(new() { Media = Media.Print });
-        await page.ScreenshotAsync("14-plant-view-printed");
+        await page.ScreenshotAsync("15-plant-view-printed");
         await page.Page.EmulateMediaAsync(new() { Media = Media.Screen });
 
         await page.GoAsync("#/plant/pellmoor");
         var refusal = page.Page.GetByRole(AriaRole.Alert);
         await Expect(refusal).ToContainTextAsync("it cannot reach plant 'pellmoor'");
         Assert.DoesNotContain("Pellmoor WRRF", await page.Page.Locator("body").InnerTextAsync());
-        await page.ScreenshotAsync("15-plant-key-refused-other-plant");
+        await page.ScreenshotAsync("16-plant-key-refused-other-plant");
         Assert.Empty(page.ScriptErrors);
     }
 }

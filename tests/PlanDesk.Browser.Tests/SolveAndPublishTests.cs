@@ -24,8 +24,10 @@ public sealed class SolveAndPublishTests(DeskFixture desk)
         await page.Page.GetByLabel("Time limit (s)").FillAsync("20");
         await page.Page.GetByRole(AriaRole.Button, new() { Name = "Solve", Exact = true }).ClickAsync();
 
+        await Expect(page.Page.Locator("#job-state")).ToBeVisibleAsync();
+        await page.ScreenshotAsync("08-solve-progress");
         await Expect(page.Page.Locator("#job-state")).ToContainTextAsync("succeeded", SolveTime);
-        await page.ScreenshotAsync("08-solve-finished");
+        await page.ScreenshotAsync("09-solve-finished");
         await page.Page.GetByRole(AriaRole.Link, new() { Name = "Open the plan" }).ClickAsync();
         await Expect(page.Page.Locator("svg.schematic .node.plant")).ToHaveCountAsync(2);
 
@@ -34,7 +36,10 @@ public sealed class SolveAndPublishTests(DeskFixture desk)
         var charts = await page.AssertChartsReadableAsync(atLeast: 5);
         // Sunday 2027-03-28 in Madrid: 02:00 does not exist, so the day has 23 hourly periods.
         Assert.All(charts.Where(c => c.Name is "production" or "units" or "energy"), c => Assert.Equal(23, c.Labels));
-        await page.ScreenshotAsync("09-dst-day-plant-over-time");
+        var tooltip = await page.HoverChartAsync("production", 0.5);
+        Assert.Contains(tooltip, line => line.Contains("(UTC+02:00)"));
+        Assert.Contains(tooltip, line => line.StartsWith("outfall: ") && line.EndsWith(" m3"));
+        await page.ScreenshotAsync("10-dst-day-plant-over-time");
         Assert.Empty(page.ScriptErrors);
     }
 
@@ -55,7 +60,7 @@ public sealed class SolveAndPublishTests(DeskFixture desk)
         await Expect(dialog).ToContainTextAsync("Orrinford WRRF (Mon 5 Apr)");
         await Expect(dialog).ToContainTextAsync("Pellmoor WRRF (Mon 5 Apr)");
         await Expect(dialog.Locator("#publish-supersedes")).ToContainTextAsync($"Orrinford WRRF on Mon 5 Apr (version 1, from plan {earlier})");
-        await page.ScreenshotAsync("10-publish-confirmation");
+        await page.ScreenshotAsync("11-publish-confirmation");
         await dialog.GetByRole(AriaRole.Button, new() { Name = "Publish 2 plant-days" }).ClickAsync();
 
         await Expect(page.Page.Locator("#publish-result")).ToContainTextAsync("2 plant-day targets are now current");
@@ -63,7 +68,7 @@ public sealed class SolveAndPublishTests(DeskFixture desk)
         var current = await desk.Api.GetAsync(scheduler, "/api/plants/orrinford/targets/2027-04-05");
         Assert.Equal(2, current["version"]!.GetValue<int>());
         Assert.Equal(later, current["planId"]!.GetValue<long>());
-        await page.ScreenshotAsync("11-published");
+        await page.ScreenshotAsync("12-published");
         Assert.Empty(page.ScriptErrors);
     }
 
@@ -88,7 +93,7 @@ public sealed class SolveAndPublishTests(DeskFixture desk)
         await Expect(refusal).ToContainTextAsync("Not published");
         await Expect(refusal).ToContainTextAsync("A viewer key is read-only");
         Assert.DoesNotContain("{", await refusal.InnerTextAsync());
-        await page.ScreenshotAsync("12-viewer-refused");
+        await page.ScreenshotAsync("13-viewer-refused");
         var publications = await desk.Api.GetListAsync(scheduler, "/api/publications");
         Assert.DoesNotContain(publications, p => p!["planId"]!.GetValue<long>() == planId);
         Assert.Empty(page.ScriptErrors);

@@ -72,6 +72,20 @@ public sealed class DeskPage(IPage page, Uri baseAddress) : IAsyncDisposable
         return charts;
     }
 
+    /// <summary>Moves the mouse over a chart at a share of its width and returns the tooltip's title and lines.</summary>
+    public async Task<IReadOnlyList<string>> HoverChartAsync(string chartName, double shareOfWidth)
+    {
+        var canvas = page.Locator($"figure[data-chart='{chartName}'] canvas");
+        var box = (await canvas.BoundingBoxAsync())!;
+        await page.Mouse.MoveAsync(box.X + box.Width * shareOfWidth, box.Y + box.Height / 2);
+        await page.WaitForTimeoutAsync(100);
+        var json = await canvas.EvaluateAsync<JsonElement>(@"canvas => {
+            const tooltip = Chart.getChart(canvas).tooltip;
+            return tooltip.opacity > 0 ? [...tooltip.title, ...tooltip.body.flatMap(b => b.lines)] : [];
+          }");
+        return json.Deserialize<List<string>>()!;
+    }
+
     /// <summary>Pairs of SVG labels of the schematic whose boxes overlap, as "text A / text B".</summary>
     public async Task<IReadOnlyList<string>> OverlappingSchematicLabelsAsync()
     {

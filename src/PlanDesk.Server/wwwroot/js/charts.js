@@ -71,9 +71,9 @@ function tickLabel(value, index, ticks) {
 }
 
 /** A value axis with its title (which must carry the unit). */
-export function valueAxis(title, { position = 'left', stacked = false, min, max, step, grid = true, grace } = {}) {
+export function valueAxis(title, { position = 'left', stacked = false, min, max, suggestedMax, step, grid = true, grace } = {}) {
   return {
-    type: 'linear', position, stacked, min, max, grace, beginAtZero: true,
+    type: 'linear', position, stacked, min, max, suggestedMax, grace, beginAtZero: true,
     title: { display: true, text: title, color: colours.ink },
     grid: { display: grid, color: colours.grid },
     ticks: { stepSize: step, callback: tickLabel, color: colours.muted },
@@ -136,11 +136,40 @@ const dayLines = {
   },
 };
 
+// Dashed horizontal lines across the whole plot at given values (a cap at 100 %), labelled at the right end.
+const guides = {
+  id: 'guides',
+  afterDatasetsDraw(chart, _, options) {
+    const lines = options?.lines ?? [];
+    const y = chart.scales.y;
+    if (!y || lines.length === 0) {
+      return;
+    }
+    const { ctx, chartArea } = chart;
+    ctx.save();
+    for (const guide of lines) {
+      const pixel = y.getPixelForValue(guide.value);
+      ctx.strokeStyle = guide.colour;
+      ctx.lineWidth = 2;
+      ctx.setLineDash([6, 4]);
+      ctx.beginPath();
+      ctx.moveTo(chartArea.left, pixel);
+      ctx.lineTo(chartArea.right, pixel);
+      ctx.stroke();
+      ctx.fillStyle = guide.colour;
+      ctx.font = '11px system-ui, sans-serif';
+      ctx.textAlign = 'right';
+      ctx.fillText(guide.label, chartArea.right - 4, pixel - 4);
+    }
+    ctx.restore();
+  },
+};
+
 /**
  * Draws a chart. `periods` (with their zone) makes it an hourly chart: labels are period indices and tooltips
  * show the local period. Datasets carry `unit` and `decimals` for their tooltips.
  */
-export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods, zone, labels, legend = true, stacked = false, indexAxis = 'x' }) {
+export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods, zone, labels, legend = true, stacked = false, indexAxis = 'x', lines = [] }) {
   const hourly = Boolean(periods);
   const dayStarts = hourly ? periods.filter((p, i) => i > 0 && periods[i - 1].day !== p.day).map(p => p.index) : [];
   const chart = new Chart(canvas, {
@@ -162,9 +191,10 @@ export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods
           },
         },
         dayLines: { starts: dayStarts },
+        guides: { lines },
       },
     },
-    plugins: [dayLines],
+    plugins: [dayLines, guides],
   });
   live.add(chart);
   return chart;
@@ -180,5 +210,5 @@ export function line(label, data, colour, { unit, decimals = 1, dashed = false, 
 }
 
 export function bars(label, data, colour, { unit, decimals = 1, stack, yAxisID = 'y' } = {}) {
-  return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9, order: 1 };
+  return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9, maxBarThickness: 90, order: 1 };
 }

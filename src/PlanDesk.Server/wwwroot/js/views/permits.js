@@ -3,7 +3,7 @@
 
 import { h, fill, note, panel, table } from '../dom.js';
 import { day, num, qty } from '../format.js';
-import { chartBox, makeChart, colours, valueAxis, dayAxis, line, bars } from '../charts.js';
+import { chartBox, makeChart, colours, valueAxis, dayAxis, bars } from '../charts.js';
 import { planDocument, planHeader } from './plan-common.js';
 
 const measures = [
@@ -25,16 +25,16 @@ function loadsChart(plant, draws) {
   if (shown.length === 0) {
     return note('This plant\'s permit sets no total N or total P caps.');
   }
-  const box = chartBox('Loads against caps', 'each load as a share of its cap (100 % is the cap); hover for kg.', { height: 210, testId: `permit-${plant.plantId}` });
+  const box = chartBox('Loads against caps', 'each load as a share of its cap; the dashed line is the cap (100 %); hover for kg.', { height: 210, testId: `permit-${plant.plantId}` });
   const datasets = shown.map(m => ({
     ...bars(m.name, days.map(d => (capped(d[m.cap]) ? (100 * d[m.load]) / d[m.cap] : null)), m.colour, { unit: '% of cap' }),
     describe: i => `${m.name}: ${qty(days[i][m.load], 'kg', 1)} of ${qty(days[i][m.cap], 'kg', 1)} cap (${num((100 * days[i][m.load]) / days[i][m.cap], 1)} %), headroom ${qty(headroom(days[i][m.load], days[i][m.cap]), 'kg', 1)}`,
   }));
-  datasets.push({ ...line('cap', days.map(() => 100), colours.cap, { unit: '%', dashed: true, width: 2 }), describe: () => 'cap: 100 %' });
   draws.push(() => makeChart(box.canvas, {
     labels: days.map(d => day(d.date, { year: false })),
     datasets,
-    scales: { x: dayAxis(days.map(d => d.date)), y: valueAxis('load (% of cap)', { grace: '5%' }) },
+    scales: { x: dayAxis(days.map(d => d.date)), y: valueAxis('load (% of cap)', { min: 0, suggestedMax: 110 }) },
+    lines: [{ value: 100, colour: colours.cap, label: 'cap (100 %)' }],
   }));
   return box.element;
 }

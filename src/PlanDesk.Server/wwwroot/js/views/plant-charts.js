@@ -108,7 +108,7 @@ function levelChart(series, plant, draws) {
     labels: dates.map(d => day(d, { year: false })),
     datasets: [{
       label: 'effluent total N', unit: 'mg/L', decimals: 1, data: chosen.map(l => l?.effluentTotalNitrogenMgPerL ?? null),
-      backgroundColor: '#6a43a6', barPercentage: 0.6,
+      backgroundColor: '#6a43a6', barPercentage: 0.6, maxBarThickness: 90,
     }],
     scales: { x: dayAxis(dates), y: valueAxis('effluent total N (mg/L)') },
     legend: false,
