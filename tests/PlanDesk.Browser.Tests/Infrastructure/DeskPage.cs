@@ -77,7 +77,7 @@ public sealed class DeskPage(IPage page, Uri baseAddress) : IAsyncDisposable
     {
         var canvas = page.Locator($"figure[data-chart='{chartName}'] canvas");
         var box = (await canvas.BoundingBoxAsync())!;
-        await page.Mouse.MoveAsync(box.X + box.Width * shareOfWidth, box.Y + box.Height / 2);
+        await page.Mouse.MoveAsync(box.X + box.Width * (float)shareOfWidth, box.Y + box.Height / 2);
         await page.WaitForTimeoutAsync(100);
         var json = await canvas.EvaluateAsync<JsonElement>(@"canvas => {
             const tooltip = Chart.getChart(canvas).tooltip;
