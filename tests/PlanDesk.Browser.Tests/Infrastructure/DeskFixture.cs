@@ -19,6 +19,11 @@ public sealed class DeskFixture : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
+        // Only this run's pictures: a stale one would show a view as it no longer is.
+        if (Directory.Exists(ScreenshotFolder))
+        {
+            Directory.Delete(ScreenshotFolder, recursive: true);
+        }
         Directory.CreateDirectory(ScreenshotFolder);
         Assert.True(File.Exists(ChromiumPath), $"{ChromiumPath} is missing: run .ci/setup-chromium.sh (installs Debian's chromium).");
         playwright = await Playwright.CreateAsync();
