@@ -4,6 +4,7 @@ using NodaTime;
 using PlanDesk.Core.Loading;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
+using PlanDesk.Core.Targets;
 using PlanDesk.Server.Auth;
 using PlanDesk.Server.Hosting;
 using PlanDesk.Server.Reports;
@@ -71,7 +72,7 @@ public sealed class DurabilityTests
                 network.Plants.Select(p => new NetworkPlantRecord(p.Id.Value, p.Name)).ToList(), now, plantRecord.KeyId);
             var planningCase = PlanningCase.Create(network, Day, 1).Case!;
             var plan = TestPlans.Simple(planningCase, 26);
-            var sheets = TestPlans.Sheets(planningCase, plan);
+            var sheets = PlantDayTargetsBuilder.Build(planningCase, plan);
             var job = await store.AddPlanJobAsync(NetworkId, 1, Day, 1, "{}", now, plantRecord.KeyId);
             await store.CompletePlanAsync(job.Id, new PlanOutcome("{}", PlanJson.Serialize(plan), "{}", JsonSerializer.Serialize(sheets, ServerJson.Options)), "seeded", now);
             await store.PublishAsync(job.Id,

@@ -78,9 +78,10 @@ public sealed class TargetsTests : IDisposable
         Assert.Equal("text/csv", response.Content.Headers.ContentType!.MediaType);
         Assert.StartsWith("# Decision support only.", lines[0]);
         var header = lines.First(l => !l.StartsWith('#')).Split(',');
-        Assert.Equal(["startUtc", "localStart", "treatedM3", "bypassM3", "production_A_M3", "units_ashby-filter", "tank_ashby-tank_endM3"], header[..7]);
+        Assert.Equal(["periodStartUtc", "localStart", "treatedM3", "bypassM3", "productionAM3", "units:ashby-filter", "tankEnd:ashby-tankM3"], header[..7]);
         Assert.Equal(24, lines.Count(l => !l.StartsWith('#')) - 1);
         Assert.StartsWith("2027-03-25T23:00:00Z,2027-03-26T00:00,26,", lines[3]);
+        Assert.Contains("version 1, treatment level standard", lines[1]);
     }
 
     [Fact]
@@ -95,5 +96,18 @@ public sealed class TargetsTests : IDisposable
         Assert.Equal([1, 2], versions.Select(v => v.Version));
         Assert.False(first.Current);
         Assert.NotEqual(versions[0].PlanId, versions[1].PlanId);
+    }
+
+    [Fact]
+    public async Task APlanCanBePublishedWithoutABody()
+    {
+        var scheduler = factory.ClientWith(await factory.AddKeyAsync(Role.Scheduler));
+        await UploadNetworkAsync(scheduler);
+        var planId = await SolveAsync(scheduler, Day);
+
+        var publication = await ReadAsync<PublicationResponse>(await scheduler.PostAsync($"/api/plans/{planId}/publish", null), HttpStatusCode.Created);
+
+        Assert.Equal(2, publication.Targets.Count);
+        Assert.Null(publication.Note);
     }
 }

@@ -20,7 +20,9 @@ public static class ApiKeys
         var keyId = Convert.ToHexStringLower(RandomNumberGenerator.GetBytes(5));
         var secret = Base64Url.EncodeToString(RandomNumberGenerator.GetBytes(32));
         var key = $"{Prefix}_{keyId}_{secret}";
-        return (key, new ApiKeyRecord(keyId, Hash(key), role, plantId, label, now, null));
+        // Whole milliseconds, as the store keeps instants.
+        var created = Instant.FromUnixTimeMilliseconds(now.ToUnixTimeMilliseconds());
+        return (key, new ApiKeyRecord(keyId, Hash(key), role, plantId, label, created, null));
     }
 
     public static string Hash(string key) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(key)));

@@ -24,13 +24,13 @@ internal sealed class LoaderNetworkReader : INetworkReader
     }
 }
 
-/// <summary>Core's per-plant, per-local-day target sheets behind <see cref="ITargetSheetBuilder"/>.</summary>
+/// <summary>The Core target-sheet builder behind <see cref="ITargetSheetBuilder"/>.</summary>
 internal sealed class CoreSheetBuilder : ITargetSheetBuilder
 {
     public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => PlantDayTargetsBuilder.Build(planningCase, plan);
 }
 
-// Placeholder until the checker and the baseline land on main.
+// A placeholder until the checker and baseline land on main.
 
 internal sealed class PendingReviewer : IPlanReviewer
 {
@@ -39,3 +39,4 @@ internal sealed class PendingReviewer : IPlanReviewer
 
     public double? BaselineCost(PlanningCase planningCase) => null;
 }
+

@@ -37,7 +37,7 @@ internal static class ReportEndpoints
         {
             return badDate;
         }
-        if (await store.GetTargetAsync(plantId, day, request.Version) is null)
+        if (await store.GetTargetAsync(plantId, day, request.Version, withSheet: false) is null)
         {
             return await PlantRoutes.NoTargetsAsync(store, plantId, day, request.Version);
         }

@@ -41,7 +41,7 @@ internal sealed class SolveJobRunner(
     private async Task RunAsync(PlanRecord job, CancellationToken stopping)
     {
         logger.LogInformation("Solve job {JobId} started: network {NetworkId} v{Version}, {StartDate} for {Days} day(s)",
-            job.Id, job.NetworkId, job.NetworkVersion, job.StartDate, job.Days);
+            job.Id, job.NetworkId, job.NetworkVersion, job.StartDate.ToString("uuuu-MM-dd", null), job.Days);
         using var cancellation = queue.Track(job.Id, stopping);
         var progress = new JobProgressRecorder(job.Id, queue);
         try

@@ -53,8 +53,9 @@ public interface IPlanDeskStore
     Task<PublicationRecord> PublishAsync(long planId, IReadOnlyList<TargetSheetToPublish> sheets, string? note, Instant at, string keyId);
     Task<PublicationRecord?> GetPublicationAsync(long publicationId);
     Task<IReadOnlyList<PublicationRecord>> ListPublicationsAsync();
-    /// <summary>The given version with its sheet, or the current (highest) one when <paramref name="version"/> is null.</summary>
-    Task<TargetRecord?> GetTargetAsync(string plantId, LocalDate date, int? version);
+    /// <summary>The given version, or the current (highest) one when <paramref name="version"/> is null; with its sheet
+    /// unless <paramref name="withSheet"/> is false (enough to answer a poll that has not changed).</summary>
+    Task<TargetRecord?> GetTargetAsync(string plantId, LocalDate date, int? version, bool withSheet = true);
     Task<IReadOnlyList<TargetRecord>> ListTargetVersionsAsync(string plantId, LocalDate date);
     /// <summary>First and last local day with published targets for the plant, or null when none.</summary>
     Task<(LocalDate First, LocalDate Last)?> PublishedDaysAsync(string plantId);

@@ -72,6 +72,7 @@ internal abstract partial class SqlStore
     public async Task<NetworkVersionRecord> AddNetworkVersionAsync(
         string networkId, string name, string document, IReadOnlyList<NetworkPlantRecord> plants, Instant at, string keyId)
     {
+        at = Stored(at);
         await using var connection = await OpenAsync();
         await using var transaction = await BeginWriteAsync(connection, "network_versions");
         var version = await connection.ExecuteScalarAsync<long>(

@@ -31,6 +31,7 @@ internal abstract partial class SqlStore
 
     public async Task<PublicationRecord> PublishAsync(long planId, IReadOnlyList<TargetSheetToPublish> sheets, string? note, Instant at, string keyId)
     {
+        at = Stored(at);
         await using var connection = await OpenAsync();
         // One writer at a time numbers versions, so every plant-day of this publication becomes current together
         // and a publication committed later supersedes all of this one's overlapping days.
@@ -78,11 +79,11 @@ internal abstract partial class SqlStore
         return rows.Select(r => ToRecord(r, targets[r.Id])).ToList();
     }
 
-    public async Task<TargetRecord?> GetTargetAsync(string plantId, LocalDate date, int? version)
+    public async Task<TargetRecord?> GetTargetAsync(string plantId, LocalDate date, int? version, bool withSheet = true)
     {
         await using var connection = await OpenAsync();
         var row = await connection.QuerySingleOrDefaultAsync<TargetRow>(
-            $"SELECT {TargetColumns}, sheet FROM targets WHERE plant_id = @plantId AND local_date = @date AND version = COALESCE(@version, " +
+            $"SELECT {TargetColumns}{(withSheet ? ", sheet" : "")} FROM targets WHERE plant_id = @plantId AND local_date = @date AND version = COALESCE(@version, " +
             "(SELECT MAX(version) FROM targets WHERE plant_id = @plantId AND local_date = @date))",
             new { plantId, date = Day(date), version = (long?)version });
         return row?.ToRecord();

@@ -56,6 +56,9 @@ internal abstract partial class SqlStore : IPlanDeskStore
 
     protected static long? Ms(Instant? instant) => instant?.ToUnixTimeMilliseconds();
 
+    /// <summary>The instant as the store keeps it (whole milliseconds), so an answer built before reading back equals one read later.</summary>
+    protected static Instant Stored(Instant instant) => At(Ms(instant));
+
     protected static Instant At(long ms) => Instant.FromUnixTimeMilliseconds(ms);
 
     protected static Instant? At(long? ms) => ms is null ? null : Instant.FromUnixTimeMilliseconds(ms.Value);

@@ -40,8 +40,8 @@ internal sealed class SqliteStore : SqlStore, IDisposable
     protected override async Task<DbConnection> OpenAsync(CancellationToken cancellation = default)
     {
         var connection = new SqliteConnection(connectionString);
+        // synchronous=FULL is also the bundled SQLite's default for every new connection.
         await connection.OpenAsync(cancellation);
-        await connection.ExecuteAsync("PRAGMA synchronous=FULL;");
         return connection;
     }
 

@@ -30,7 +30,7 @@ internal static class PlantRoutes
         {
             return Problems.NotFound("No targets published", $"No targets have been published for plant '{plantId}' yet; a scheduler publishes a plan with POST /api/plans/{{planId}}/publish.");
         }
-        if (version is { } v && await store.GetTargetAsync(plantId, date, null) is { } current)
+        if (version is { } v && await store.GetTargetAsync(plantId, date, null, withSheet: false) is { } current)
         {
             return Problems.NotFound("Target version not found", $"Plant '{plantId}' has versions 1 to {current.Version} for {day}, not version {v}.");
         }

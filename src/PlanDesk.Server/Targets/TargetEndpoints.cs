@@ -56,12 +56,12 @@ internal static class TargetEndpoints
         {
             return badDate;
         }
-        var record = await store.GetTargetAsync(plantId, day, version);
+        var record = await store.GetTargetAsync(plantId, day, version, withSheet: false);
         if (record is null)
         {
             return await PlantRoutes.NoTargetsAsync(store, plantId, day, version);
         }
-        var current = version is null || (await store.GetTargetAsync(plantId, day, null))?.Version == record.Version;
+        var current = version is null || (await store.GetTargetAsync(plantId, day, null, withSheet: false))?.Version == record.Version;
         var csv = WantsCsv(context.Request);
         // The version and publication identify the content; the format is part of the representation.
         var etag = new EntityTagHeaderValue($"\"v{record.Version}-p{record.PublicationId}-{(csv ? "csv" : "json")}\"");
@@ -72,7 +72,9 @@ internal static class TargetEndpoints
         {
             return TypedResults.StatusCode(StatusCodes.Status304NotModified);
         }
-        var sheet = JsonSerializer.Deserialize<PlantDayTargets>(record.SheetJson!, ServerJson.Options)!;
+        // The version read above identifies the sheet: versions never change once published.
+        var sheetJson = (await store.GetTargetAsync(plantId, day, record.Version))!.SheetJson!;
+        var sheet = JsonSerializer.Deserialize<PlantDayTargets>(sheetJson, ServerJson.Options)!;
         var response = new TargetsResponse(record.PlantId, record.Date, record.Version, current, record.PlanId, record.PublicationId, record.PublishedAt, sheet);
         return csv ? TypedResults.Text(TargetCsv.Write(response), "text/csv; charset=utf-8") : TypedResults.Ok(response);
     }

@@ -2,7 +2,6 @@ using System.Collections.Concurrent;
 using NodaTime;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
-using PlanDesk.Core.Targets;
 using PlanDesk.Planning;
 using PlanDesk.Server.Engine;
 
@@ -35,12 +34,6 @@ public sealed class FakeSolver : IPlanSolver
         }
         return TestPlans.Simple(planningCase, planningCase.Horizon.StartDate.Day);
     }
-}
-
-/// <summary>Stands in for the target-sheet builder.</summary>
-public sealed class FakeSheetBuilder : ITargetSheetBuilder
-{
-    public IReadOnlyList<PlantDayTargets> Build(PlanningCase planningCase, Plan plan) => TestPlans.Sheets(planningCase, plan);
 }
 
 /// <summary>Stands in for the checker and baseline: every plan passes; the baseline costs 2000.</summary>

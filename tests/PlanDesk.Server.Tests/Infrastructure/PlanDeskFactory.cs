@@ -13,7 +13,7 @@ using PlanDesk.Server.Store;
 namespace PlanDesk.Server.Tests.Infrastructure;
 
 /// <summary>
-/// The service in memory on a test database, with the planner, checker and sheet builder replaced by fakes and
+/// The service in memory on a test database, with the planner and checker replaced by fakes and
 /// the clock fixed at 2027-03-27 12:00 UTC (so actuals for 2027-03-26 are in the past).
 /// </summary>
 public sealed class PlanDeskFactory(TestDatabase database) : WebApplicationFactory<Program>
@@ -39,7 +39,6 @@ public sealed class PlanDeskFactory(TestDatabase database) : WebApplicationFacto
         builder.ConfigureTestServices(services =>
         {
             services.Replace(ServiceDescriptor.Singleton<IPlanSolver>(Solver));
-            services.Replace(ServiceDescriptor.Singleton<ITargetSheetBuilder>(new FakeSheetBuilder()));
             services.Replace(ServiceDescriptor.Singleton<IPlanReviewer>(new FakeReviewer()));
             services.Replace(ServiceDescriptor.Singleton<IClock>(Clock));
         });

@@ -1,10 +1,9 @@
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
-using PlanDesk.Core.Targets;
 
 namespace PlanDesk.Server.Tests.Infrastructure;
 
-/// <summary>Hand-made plans and sheets of the right shape for a planning case, so the service can be tested without a solve.</summary>
+/// <summary>Hand-made plans of the right shape for a planning case, so the service can be tested without a solve.</summary>
 public static class TestPlans
 {
     /// <summary>A plan whose plants treat <paramref name="treatedM3"/> in every period: the value tells plans apart.</summary>
@@ -49,42 +48,4 @@ public static class TestPlans
             MarginalWaterCosts = [new MarginalWaterCost(network.Customers[0].Id, 0, 0.42)],
         };
     }
-
-    /// <summary>One sheet per plant and local day, cut from the plan's arrays.</summary>
-    public static IReadOnlyList<PlantDayTargets> Sheets(PlanningCase planningCase, Plan plan) =>
-        planningCase.Horizon.Days.SelectMany(day => plan.Plants.Select(plantPlan =>
-        {
-            var plant = planningCase.Network.Plant(plantPlan.Plant);
-            var level = plant.Level(plantPlan.LevelByDay[day.Index]);
-            return new PlantDayTargets
-            {
-                Plant = plant.Id,
-                PlantName = plant.Name,
-                Date = day.Date,
-                TimeZone = planningCase.Network.TimeZone.Id,
-                Currency = plan.Currency,
-                TreatmentLevel = level.Id,
-                TreatmentLevelName = level.Name,
-                EffluentTotalNitrogenMgPerL = level.EffluentTotalNitrogenMgPerL,
-                EffluentTotalPhosphorusMgPerL = level.EffluentTotalPhosphorusMgPerL,
-                Hours = day.PeriodIndices.Select(t => new HourTarget
-                {
-                    Start = planningCase.Horizon.Periods[t].Start,
-                    LocalStart = planningCase.Horizon.Periods[t].LocalStart,
-                    TreatedM3 = plantPlan.TreatedM3[t],
-                    BypassM3 = plantPlan.BypassM3[t],
-                    ProductionM3ByClass = new Dictionary<ClassId, double> { [planningCase.Network.Classes[0].Id] = 0 },
-                    UnitsRunning = plant.Stages.ToDictionary(s => s.Id, s => plan.Stages.Single(x => x.Stage == s.Id).UnitsRunning[t]),
-                    TankEndM3 = planningCase.Network.Tanks.Where(k => k.Plant == plant.Id)
-                        .ToDictionary(k => k.Id, k => plan.Tanks.Single(x => x.Tank == k.Id).EndVolumeM3[t]),
-                    OutfallM3 = plantPlan.SecondaryToOutfallM3[t],
-                    ImportKWh = plantPlan.ImportKWh[t],
-                    EngineKWh = plantPlan.EngineKWh[t],
-                    ExportKWh = plantPlan.ExportKWh[t],
-                }).ToList(),
-                Permit = new PermitTargets(0, 0, plant.Permit.DailyTotalNitrogenKg, null, 0, null, null),
-                Energy = new EnergyBudget(0, 0, 0, 0, 0),
-                Deliveries = [],
-            };
-        })).ToList();
 }
