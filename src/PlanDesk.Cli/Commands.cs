@@ -12,5 +12,8 @@ internal static class Commands
         ServeCommand.Create(),
         KeysCommand.Create(),
         LoadTestCommand.Create(),
+        GenerateCommand.Create(),
+        BenchCommand.Create(),
+        BenchOneCommand.Create(),
     ];
 }

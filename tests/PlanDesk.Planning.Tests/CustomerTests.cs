@@ -100,4 +100,33 @@ public class CustomerTests
         Assert.All(plan.MarginalWaterCosts, m => Assert.Equal(10.0, m.CostPerM3, 1e-6));
         Assert.Equal(24, plan.MarginalWaterCosts.Count);
     }
+
+    // A pipeline with two pumps of 20-80 m3/h each serves customers from a full tank.
+    // Hand working: 50 m3/h needs one pump (20 ≤ 50 ≤ 80) and is delivered in full; 10 m3/h is below one pump's
+    // minimum and a delivery may not exceed the demand, so the customer is short 24 × 10 = 240 m3, and the message
+    // names the pumps.
+    [Theory]
+    [InlineData(50.0, 0.0)]
+    [InlineData(10.0, 240.0)]
+    public void DiscretePumpsCarryBetweenTheirMinimumAndMaximum(double demandM3PerHour, double expectedShortM3)
+    {
+        var pipeline = Build.ToCustomer("main", "store", "farm") with { Pumps = new PumpSet(2, 20, 80) };
+        var network = Build.Network(
+            Build.FlatTariff(100),
+            [Build.Plant()],
+            tanks: [Build.Tank("store", initialM3: 10_000)],
+            pipelines: [pipeline],
+            customers: [Build.HourlyCustomer("farm", demandM3PerHour)],
+            penalties: new Penalties { TankEndDeficitPerM3 = 0 });
+
+        var plan = Build.Solve(Build.Case(network));
+
+        Assert.Equal(expectedShortM3, plan.CustomerPlan(new CustomerId("farm")).ShortfallM3.Sum(), 1e-6);
+        var pumps = plan.PipelinePlan(new PipelineId("main")).PumpsRunning!;
+        Assert.All(pumps, n => Assert.Equal(expectedShortM3 > 0 ? 0 : 1, n));
+        if (expectedShortM3 > 0)
+        {
+            Assert.EndsWith("the pumps of pipeline main cannot deliver less than 20 m3/h", Assert.Single(plan.Problems).Message);
+        }
+    }
 }

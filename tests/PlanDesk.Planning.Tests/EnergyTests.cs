@@ -89,4 +89,34 @@ public class EnergyTests
         Assert.Equal(96.0, plan.Costs.Total, 96.0 * 0.001);
         Assert.Equal(0.0, plan.Costs.DemandCharge, 1e-6);
     }
+
+    // A 100 kW base load all day on a flat 100 EUR/MWh tariff whose grid emits 400 kg CO2/MWh, carbon at 50 EUR/t.
+    // Hand working: 2.4 MWh × 100 = 240 EUR of energy; 2.4 MWh × 0.4 t/MWh × 50 EUR/t = 48 EUR of carbon; 288 EUR.
+    [Fact]
+    public void CarbonPriceChargesTheGridEmissionsOfImports()
+    {
+        var tariff = Build.FlatTariff(100) with { GridEmissionsKgPerMWh = 400 };
+        var network = Build.Network(tariff, [Build.Plant() with { BaseLoadKw = 100 }]) with { CarbonPricePerTonne = 50 };
+
+        var plan = Build.Solve(Build.Case(network));
+
+        Assert.Equal(48.0, plan.Costs.Carbon, 1e-6);
+        Assert.Equal(288.0, plan.Costs.Total, 288.0 * 0.001);
+    }
+
+    // No load at all; biogas 30 Nm3/h at 6 kWh/Nm3 and 50 % makes 90 kWh each hour, sold at 40 EUR/MWh.
+    // Hand working: 24 × 90 = 2 160 kWh exported, 2.16 MWh × 40 = 86.40 EUR of credit: the objective is −86.40 EUR,
+    // and the gap is taken against its absolute value.
+    [Fact]
+    public void EngineOutputAboveTheLoadIsSoldAtTheFeedInPrice()
+    {
+        var plant = Build.Plant() with { Biogas = new Biogas(Series.Constant(30), 6, 0, 0, 100, 0.5) };
+        var network = Build.Network(Build.FlatTariff(100, feedInPricePerMWh: 40), [plant]);
+
+        var plan = Build.Solve(Build.Case(network));
+
+        Assert.Equal(86.4, plan.Costs.EnergyExportCredit, 1e-6);
+        Assert.Equal(-86.4, plan.Solve.Objective, 86.4 * 0.001);
+        Assert.True(plan.Solve.GapPercent >= 0 && plan.Solve.GapPercent <= 0.01 + 1e-9);
+    }
 }

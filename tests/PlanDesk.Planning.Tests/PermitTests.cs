@@ -141,4 +141,20 @@ public class PermitTests
         Assert.Equal(new LevelId("tight"), plan.Plants[0].LevelByDay[0]);
         Assert.Equal(624.0, plan.Costs.Total, 624.0 * 0.001);
     }
+
+    // Limits of 6 mg/L N that neither level meets (12 and 8 mg/L). Hand working: the data leave no lawful level, so
+    // the tightest (tight, 8 mg/L) is planned and named as a problem; the plan still comes out at 624 EUR.
+    [Fact]
+    public void NoLevelWithinTheConcentrationLimitPlansTheTightestAndSaysSo()
+    {
+        var permit = new Permit { MaxTotalNitrogenMgPerL = 6 };
+        var network = Build.Network(Build.FlatTariff(100), [Build.Plant(influentM3PerHour: 1000, levels: Levels, permit: permit)]);
+
+        var plan = Build.Solve(Build.Case(network));
+
+        Assert.Equal(new LevelId("tight"), plan.Plants[0].LevelByDay[0]);
+        var problem = Assert.Single(plan.Problems);
+        Assert.Equal("levelLimit", problem.Kind);
+        Assert.Contains("no treatment level meets the permit's concentration limits", problem.Message);
+    }
 }

@@ -95,4 +95,21 @@ public class TargetsTests
             Directory.Delete(directory, recursive: true);
         }
     }
+
+    // Europe/Madrid falls back on 2027-10-31: 02:00-03:00 local happens twice, so the day has 25 hourly periods.
+    // Hand working: a constant 100 m3/h influent treats 25 × 100 = 2 500 m3 that day; 25 rows, 26 CSV lines.
+    [Fact]
+    public void DstFallBackDayHasTwentyFiveRows()
+    {
+        var fallBack = new NodaTime.LocalDate(2027, 10, 31);
+        var network = Build.Network(Build.FlatTariff(100), [Build.Plant(influentM3PerHour: 100)]);
+        var planningCase = Build.Case(network, fallBack);
+
+        var targets = Assert.Single(PlantDayTargetsBuilder.Build(planningCase, Build.Solve(planningCase)));
+
+        Assert.Equal(25, targets.Hours.Count);
+        Assert.Equal(2, targets.Hours.Count(h => h.LocalStart.Hour == 2));
+        Assert.Equal(2500.0, targets.Hours.Sum(h => h.TreatedM3), 1e-6);
+        Assert.Equal(26, TargetWriters.ToCsv(targets).TrimEnd('\n').Split('\n').Length);
+    }
 }

@@ -36,6 +36,12 @@ internal static class ShortfallReasons
                 reasons.Add($"its delivery hours and pipelines allow at most {Amounts.Format(windowM3)} m3 a day");
             }
         }
+        if (customer.Demand is HourlyDemand && periods.Count > 0 && pipelines.All(l => l.Pumps is { } pumps &&
+                periods.All(t => pumps.MinFlowM3PerHour * planningCase.PeriodHours > planningCase.DemandM3[customer.Id][t] + Tolerance)))
+        {
+            reasons.Add(string.Join(", ", pipelines.Select(l =>
+                $"the pumps of pipeline {l.Name} cannot deliver less than {Amounts.Format(l.Pumps!.MinFlowM3PerHour)} m3/h")));
+        }
         var full = pipelines.Where(l => periods.Count > 0 && periods.All(t =>
             plan.PipelinePlan(l.Id).FlowM3[t] >= l.CapacityM3PerHour * planningCase.PeriodHours - Tolerance)).ToList();
         if (full.Count == pipelines.Count)

@@ -1,0 +1,120 @@
+using System.Diagnostics;
+using PlanDesk.Core.Generation;
+using PlanDesk.Core.Model;
+using PlanDesk.Core.Plans;
+using PlanDesk.Planning;
+
+namespace PlanDesk.Cli.Bench;
+
+/// <summary>Runs one benchmark case in this process: generate, baseline, solve, check, and time each.</summary>
+internal static class BenchRunner
+{
+    public const string PlannerNotAvailable = "planner not available";
+
+    public static BenchResult Run(BenchCase benchCase)
+    {
+        var network = RegionGenerator.Generate(benchCase.Size, benchCase.Seed).Network;
+        var created = PlanningCase.Create(network, network.DefaultStartDate!.Value, network.DefaultDays);
+        var row = new BenchResult
+        {
+            Size = benchCase.Size.Name,
+            Seed = benchCase.Seed,
+            Solver = benchCase.Solver,
+            Plants = network.Plants.Count,
+            Customers = network.Customers.Count,
+            Status = "failed",
+        };
+        if (created.Case is not { } planningCase)
+        {
+            return row with { Note = "the generated region does not resolve: " + string.Join("; ", created.Problems) };
+        }
+        row = row with { Periods = planningCase.PeriodCount };
+        var notes = new List<string>();
+
+        double? baselineCost = null;
+        if (BenchComponents.Baseline is { } baseline)
+        {
+            baselineCost = baseline(planningCase).Costs.Total;
+        }
+        else
+        {
+            notes.Add("baseline not available");
+        }
+
+        var options = new SolveOptions { Solver = benchCase.Solver, TimeLimitSeconds = benchCase.TimeLimitSeconds, GapPercent = benchCase.GapPercent };
+        var recorder = new PhaseRecorder();
+        var clock = Stopwatch.StartNew();
+        Plan plan;
+        try
+        {
+            plan = Planner.Solve(planningCase, options, recorder);
+        }
+        catch (NotImplementedException)
+        {
+            return Finish(row with { Status = PlannerNotAvailable, BaselineCost = baselineCost }, notes);
+        }
+        var solveSeconds = clock.Elapsed.TotalSeconds;
+        var info = plan.Solve;
+        var hasPlan = info.Status != SolveStatus.NoPlan;
+        row = row with
+        {
+            Status = info.Status,
+            Variables = info.Variables,
+            Integers = info.IntegerVariables,
+            Constraints = info.Constraints,
+            BuildSeconds = recorder.BuildSeconds,
+            SolveSeconds = solveSeconds,
+            Objective = hasPlan ? info.Objective : null,
+            BestBound = Finite(info.BestBound),
+            GapPercent = hasPlan ? Finite(info.GapPercent) : null,
+            LpRelaxationBound = recorder.RelaxationBound,
+            BaselineCost = baselineCost,
+            Saving = hasPlan && baselineCost is { } cost ? cost - plan.Costs.Total : null,
+            SavingPercent = hasPlan && baselineCost is { } b && Math.Abs(b) > 1e-9 ? 100 * (b - plan.Costs.Total) / b : null,
+        };
+        if (!hasPlan)
+        {
+            notes.AddRange(plan.Problems.Take(1).Select(p => p.Message));
+        }
+
+        if (hasPlan && BenchComponents.Checker is { } checker)
+        {
+            var verdict = checker(planningCase, plan);
+            row = row with { Violations = verdict.Violations, HardViolations = verdict.HardViolations };
+        }
+        else if (hasPlan)
+        {
+            notes.Add("checker not available");
+        }
+
+        if (benchCase.MeasureFirstPlan)
+        {
+            row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options, recorder) };
+        }
+        return Finish(row, notes);
+    }
+
+    // The planner reports no incumbents (OR-Tools' MPSolver has no MIP callback in .NET), so the time to a
+    // first plan is measured by a second solve that stops at any plan (a 100 % gap).
+    private static double? FirstPlanSeconds(PlanningCase planningCase, SolveOptions options, PhaseRecorder mainSolve)
+    {
+        if (mainSolve.FirstIncumbentSeconds is { } reported)
+        {
+            return reported;
+        }
+        var recorder = new PhaseRecorder();
+        var clock = Stopwatch.StartNew();
+        var plan = Planner.Solve(planningCase, options with { GapPercent = 100 }, recorder);
+        var seconds = clock.Elapsed.TotalSeconds - recorder.BoundingSeconds;
+        return plan.Solve.Status == SolveStatus.NoPlan ? null : seconds;
+    }
+
+    private static BenchResult Finish(BenchResult row, List<string> notes)
+    {
+        using var process = Process.GetCurrentProcess();
+        process.Refresh();
+        return row with { PeakMemoryMB = process.PeakWorkingSet64 / 1024.0 / 1024.0, Note = string.Join("; ", notes) };
+    }
+
+    private static double? Finite(double value) => double.IsFinite(value) ? value : null;
+}
