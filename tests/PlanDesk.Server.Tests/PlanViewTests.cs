@@ -60,11 +60,13 @@ public sealed class PlanViewTests
 
         var series = await ReadAsync<PlanSeriesResponse>(await served.Scheduler.GetAsync($"/api/plans/{planId}/series"), HttpStatusCode.OK);
 
-        // The fake sheets carry no load, so month to date is ashby's 1 000 kg before the plan, then 0 in April.
+        // The fake plan sends 31 m3 of secondary effluent at 12 mg/L total N to the outfall in each of 24 hours:
+        // 744 m3 × 12 mg/L = 8.928 kg a day. March adds it to ashby's 1 000 kg before the plan; April starts afresh.
         var permit = series.Plants.Single(p => p.PlantId == "ashby").Permit;
         Assert.Equal([new LocalDate(2027, 3, 31), new LocalDate(2027, 4, 1)], permit.Select(d => d.Date));
-        Assert.Equal(1000, permit[0].MonthToDateTotalNitrogenKg);
-        Assert.Equal(0, permit[1].MonthToDateTotalNitrogenKg);
+        Assert.Equal(8.928, permit[0].TotalNitrogenKg, 6);
+        Assert.Equal(1008.928, permit[0].MonthToDateTotalNitrogenKg, 6);
+        Assert.Equal(8.928, permit[1].MonthToDateTotalNitrogenKg, 6);
         Assert.Equal(4000, permit[1].MonthlyTotalNitrogenCapKg);
         Assert.Equal(150, permit[1].DailyTotalNitrogenCapKg);
     }
