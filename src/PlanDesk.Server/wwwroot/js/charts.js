@@ -156,10 +156,14 @@ const guides = {
       ctx.moveTo(chartArea.left, pixel);
       ctx.lineTo(chartArea.right, pixel);
       ctx.stroke();
-      ctx.fillStyle = guide.colour;
+      ctx.setLineDash([]);
       ctx.font = '11px system-ui, sans-serif';
       ctx.textAlign = 'right';
-      ctx.fillText(guide.label, chartArea.right - 4, pixel - 4);
+      const width = ctx.measureText(guide.label).width;
+      ctx.fillStyle = 'rgba(255, 255, 255, 0.9)';
+      ctx.fillRect(chartArea.right - width - 8, pixel - 17, width + 6, 14);
+      ctx.fillStyle = guide.colour;
+      ctx.fillText(guide.label, chartArea.right - 5, pixel - 6);
     }
     ctx.restore();
   },
