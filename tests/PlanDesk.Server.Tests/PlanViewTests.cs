@@ -53,6 +53,20 @@ public sealed class PlanViewTests
     }
 
     [Theory, OnSqlite, OnPostgres]
+    public async Task SeriesOfAFallBackDayHasTwentyFivePeriodsAndTellsTheTwoTwoOClocksApart(StoreKind store)
+    {
+        await using var served = await Served.StartAsync(store, publishDay: false);
+        var planId = await SolveAsync(served.Scheduler, new LocalDate(2027, 10, 31));
+
+        var series = await ReadAsync<PlanSeriesResponse>(await served.Scheduler.GetAsync($"/api/plans/{planId}/series"), HttpStatusCode.OK);
+
+        Assert.Equal(25, series.Periods.Count);
+        var twoOClocks = series.Periods.Where(p => p.LocalStart == new LocalDateTime(2027, 10, 31, 2, 0)).ToList();
+        Assert.Equal(["+02:00", "+01:00"], twoOClocks.Select(p => p.UtcOffset));
+        Assert.Equal(25, series.Days.Single().PeriodCount);
+    }
+
+    [Theory, OnSqlite, OnPostgres]
     public async Task MonthToDateLoadsStartFromThePermitsFigureAndRestartInANewMonth(StoreKind store)
     {
         await using var served = await Served.StartAsync(store, publishDay: false);
