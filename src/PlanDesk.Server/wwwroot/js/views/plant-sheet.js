@@ -3,7 +3,7 @@
 
 import { h, table } from '../dom.js';
 import { num, qty, clock, periodUnit } from '../format.js';
-import { chartBox, makeChart, colours, classColour, valueAxis, line, bars } from '../charts.js';
+import { chartBox, makeChart, colours, valueAxis, line, bars } from '../charts.js';
 
 const purple = ['#3d1f6b', '#6a43a6', '#9474c6', '#b9a3dc'];
 const tankColours = ['#2c6e8f', '#2f8a5c', '#b97a2a', '#7b2d3b'];
@@ -91,4 +91,3 @@ export function sheetCharts(sheet, actualsByStart, draws, suffix) {
   return h('div', { class: 'chart-grid two' }, production.element, levels.element);
 }
 
-export { classColour };
