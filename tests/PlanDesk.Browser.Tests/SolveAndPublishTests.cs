@@ -5,6 +5,8 @@ using static Microsoft.Playwright.Assertions;
 
 namespace PlanDesk.Browser.Tests;
 
+// Tests share one service, so each uploads its own copy of the plant-pair network and plans its own local days
+// (solve 2027-03-28, publish 2027-04-05, viewer 2027-04-06; the plant view has 2027-03-28/29 published by itself).
 [Collection(DeskCollection.Name)]
 public sealed class SolveAndPublishTests(DeskFixture desk)
 {
