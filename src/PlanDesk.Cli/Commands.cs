@@ -9,11 +9,11 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         SolveCommand.Create(),
-        ServeCommand.Create(),
-        KeysCommand.Create(),
-        LoadTestCommand.Create(),
         GenerateCommand.Create(),
         BenchCommand.Create(),
         BenchOneCommand.Create(),
+        ServeCommand.Create(),
+        KeysCommand.Create(),
+        LoadTestCommand.Create(),
     ];
 }

@@ -29,9 +29,13 @@ internal static class LoadTestCommand
         var network = new Option<FileInfo>("--network") { Description = "Network file to upload, solve and publish (series inline).", DefaultValueFactory = _ => new FileInfo("networks/quickstart.json") };
         var url = new Option<string?>("--url") { Description = "A running server on this machine (http://127.0.0.1:PORT); without it a temporary server is started." };
         var key = new Option<string?>("--key") { Description = "A scheduler key of the server given by --url." };
+        var postgres = new Option<string?>("--postgres")
+        {
+            Description = "Run the temporary server on this PostgreSQL database (in a schema of its own, dropped afterwards) instead of SQLite.",
+        };
         var command = new Command("loadtest", "Load the target service with simulated plant controllers on this machine and report throughput and latency.")
         {
-            controllers, seconds, thinkMs, actualsEvery, network, url, key,
+            controllers, seconds, thinkMs, actualsEvery, network, url, key, postgres,
         };
         AddRange(controllers, 1, 500);
         AddRange(seconds, 1, 600);
@@ -68,7 +72,7 @@ internal static class LoadTestCommand
                 {
                     return await RunAsync(new Uri(address), parse.GetValue(key)!, loaded.Network, File.ReadAllText(file.FullName), settings, stop);
                 }
-                return await RunSelfHostedAsync(loaded.Network, File.ReadAllText(file.FullName), settings, stop);
+                return await RunSelfHostedAsync(parse.GetValue(postgres), loaded.Network, File.ReadAllText(file.FullName), settings, stop);
             }
             catch (LoadTestException problem)
             {
@@ -90,18 +94,21 @@ internal static class LoadTestCommand
 
     private sealed record LoadSettings(int Controllers, TimeSpan Duration, TimeSpan Think, int ActualsEvery);
 
-    private static async Task<int> RunSelfHostedAsync(Core.Model.Network network, string networkJson, LoadSettings settings, CancellationToken stop)
+    private static async Task<int> RunSelfHostedAsync(string? postgres, Core.Model.Network network, string networkJson, LoadSettings settings, CancellationToken stop)
     {
         var directory = Path.Combine(Path.GetTempPath(), "plandesk-loadtest-" + Guid.NewGuid().ToString("N"));
-        var app = PlanDesk.Server.Program.Create(
-            ["--" + StoreSettings.DataDirectoryKey, directory, "--urls", "http://127.0.0.1:0", "--Logging:LogLevel:Default", "Warning"]);
+        await using var schema = postgres is null ? null : await TemporarySchema.CreateAsync(postgres);
+        string[] store = schema is null
+            ? ["--" + StoreSettings.DataDirectoryKey, directory]
+            : ["--" + StoreSettings.PostgresKey, schema.ConnectionString];
+        var app = PlanDesk.Server.Program.Create([.. store, "--urls", "http://127.0.0.1:0", "--Logging:LogLevel:Default", "Warning"]);
         try
         {
             await app.StartAsync(stop);
             var address = new Uri(app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses.First());
             var (key, record) = ApiKeys.Create(Role.Scheduler, null, "load test", SystemClock.Instance.GetCurrentInstant());
             await app.Services.GetRequiredService<IPlanDeskStore>().AddKeyAsync(record);
-            Console.WriteLine($"temporary server at {address} with its store in {directory}");
+            Console.WriteLine($"temporary server at {address} with its store in {app.Services.GetRequiredService<IPlanDeskStore>().Description}");
             return await RunAsync(address, key, network, networkJson, settings, stop);
         }
         finally
@@ -109,7 +116,10 @@ internal static class LoadTestCommand
             await app.StopAsync(CancellationToken.None);
             await app.DisposeAsync();
             Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-            Directory.Delete(directory, recursive: true);
+            if (Directory.Exists(directory))
+            {
+                Directory.Delete(directory, recursive: true);
+            }
         }
     }
 

@@ -35,6 +35,14 @@ internal sealed class PostgresStore : SqlStore, IAsyncDisposable, IDisposable
         return transaction;
     }
 
+    // CREATE TABLE IF NOT EXISTS is not safe when run at once by two sessions; a lock keyed on the schema is.
+    protected override async Task<DbTransaction> BeginMigrationAsync(DbConnection connection, CancellationToken cancellation)
+    {
+        var transaction = await connection.BeginTransactionAsync(cancellation);
+        await connection.ExecuteAsync("SELECT pg_advisory_xact_lock(hashtext('plandesk-migrations:' || current_schema()))", transaction: transaction);
+        return transaction;
+    }
+
     public ValueTask DisposeAsync() => dataSource.DisposeAsync();
 
     public void Dispose() => dataSource.Dispose();

@@ -28,11 +28,15 @@ internal abstract partial class SqlStore : IPlanDeskStore
     /// so two writers numbering versions of the same thing are serialised.</summary>
     protected abstract Task<DbTransaction> BeginWriteAsync(DbConnection connection, string? lockTable, CancellationToken cancellation = default);
 
+    /// <summary>Begins the transaction migrations run in, holding a lock that keeps any other process migrating the
+    /// same database waiting until it ends (two servers may start at once).</summary>
+    protected abstract Task<DbTransaction> BeginMigrationAsync(DbConnection connection, CancellationToken cancellation);
+
     public async Task MigrateAsync(CancellationToken cancellation = default)
     {
         await using var connection = await OpenAsync(cancellation);
-        await connection.ExecuteAsync(Migrations.CreateMigrationsTable);
-        await using var transaction = await BeginWriteAsync(connection, "schema_migrations", cancellation);
+        await using var transaction = await BeginMigrationAsync(connection, cancellation);
+        await connection.ExecuteAsync(Migrations.CreateMigrationsTable, transaction: transaction);
         var applied = (await connection.QueryAsync<long>("SELECT version FROM schema_migrations", transaction: transaction)).ToHashSet();
         foreach (var step in Migrations.All.Where(s => !applied.Contains(s.Version)).OrderBy(s => s.Version))
         {

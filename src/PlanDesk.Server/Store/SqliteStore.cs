@@ -48,5 +48,8 @@ internal sealed class SqliteStore : SqlStore, IDisposable
     protected override Task<DbTransaction> BeginWriteAsync(DbConnection connection, string? lockTable, CancellationToken cancellation = default) =>
         Task.FromResult<DbTransaction>(((SqliteConnection)connection).BeginTransaction(deferred: false));
 
+    protected override Task<DbTransaction> BeginMigrationAsync(DbConnection connection, CancellationToken cancellation) =>
+        BeginWriteAsync(connection, null, cancellation);
+
     public void Dispose() => SqliteConnection.ClearAllPools();
 }

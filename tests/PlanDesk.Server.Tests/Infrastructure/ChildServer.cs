@@ -6,7 +6,8 @@ using System.Text;
 
 namespace PlanDesk.Server.Tests.Infrastructure;
 
-/// <summary>`plandesk serve` as a separate process on a free loopback port, so a test can kill it hard.</summary>
+/// <summary>`plandesk serve` as a separate process on a free loopback port, so a test can kill it hard; and other
+/// `plandesk` commands run to their end.</summary>
 public sealed class ChildServer : IDisposable
 {
     private readonly Process process;
@@ -34,23 +35,42 @@ public sealed class ChildServer : IDisposable
 
     public static async Task<ChildServer> StartAsync(string dataDirectory)
     {
-        var cli = typeof(ChildServer).Assembly.GetCustomAttributes<AssemblyMetadataAttribute>().Single(a => a.Key == "PlanDeskCli").Value!;
-        Assert.True(File.Exists(cli), $"the plandesk CLI was not built at {cli}");
         var address = new Uri($"http://127.0.0.1:{FreeLoopbackPort()}");
-        var start = new ProcessStartInfo(Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") ?? "dotnet")
-        {
-            ArgumentList = { cli, "serve", "--data-dir", dataDirectory, "--urls", address.ToString().TrimEnd('/') },
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        var server = new ChildServer(Process.Start(start)!, address);
+        var server = new ChildServer(Process.Start(Cli("serve", "--data-dir", dataDirectory, "--urls", address.ToString().TrimEnd('/')))!, address);
         server.process.OutputDataReceived += (_, e) => server.Append(e.Data);
         server.process.ErrorDataReceived += (_, e) => server.Append(e.Data);
         server.process.BeginOutputReadLine();
         server.process.BeginErrorReadLine();
         await server.WaitUntilUpAsync();
         return server;
+    }
+
+    /// <summary>Runs a `plandesk` command to its end; returns its exit code, standard output and standard error.</summary>
+    public static async Task<(int Exit, string Output, string Errors)> RunAsync(params string[] arguments)
+    {
+        using var process = Process.Start(Cli(arguments))!;
+        var output = process.StandardOutput.ReadToEndAsync();
+        var errors = process.StandardError.ReadToEndAsync();
+        await process.WaitForExitAsync();
+        return (process.ExitCode, await output, await errors);
+    }
+
+    private static ProcessStartInfo Cli(params string[] arguments)
+    {
+        var cli = typeof(ChildServer).Assembly.GetCustomAttributes<AssemblyMetadataAttribute>().Single(a => a.Key == "PlanDeskCli").Value!;
+        Assert.True(File.Exists(cli), $"the plandesk CLI was not built at {cli}");
+        var start = new ProcessStartInfo(Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") ?? "dotnet")
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add(cli);
+        foreach (var argument in arguments)
+        {
+            start.ArgumentList.Add(argument);
+        }
+        return start;
     }
 
     public HttpClient Client(string key)
