@@ -4,6 +4,7 @@ using PlanDesk.Server.Networks;
 using PlanDesk.Server.Plans;
 using PlanDesk.Server.Reports;
 using PlanDesk.Server.Targets;
+using PlanDesk.Server.Views;
 
 namespace PlanDesk.Server;
 
@@ -46,6 +47,8 @@ public sealed class Program
         api.MapTargets();
         api.MapPlantReports();
         api.MapKeys();
+        api.MapSession();
+        api.MapPlanViews();
         return app;
     }
 }

@@ -125,11 +125,15 @@ internal static class PlanEndpoints
             return new PlanCheckResponse(record.Id, check.Passed, check.Violations, check.RecomputedCosts);
         });
 
-    private static Plan ReadPlan(PlanRecord record) => PlanJson.Deserialize(record.PlanJson!)!;
+    internal static Plan ReadPlan(PlanRecord record) => PlanJson.Deserialize(record.PlanJson!)!;
+
+    private static Task<Results<Ok<T>, NotFound<ProblemDetails>, Conflict<ProblemDetails>>> WithFinishedPlan<T>(
+        IPlanDeskStore store, long planId, Func<PlanRecord, T> read) =>
+        WithFinishedPlanAsync(store, planId, record => Task.FromResult(read(record)));
 
     /// <summary>Answers from a plan whose job succeeded; otherwise 404 for no such plan, 409 for one not (or never) ready.</summary>
-    private static async Task<Results<Ok<T>, NotFound<ProblemDetails>, Conflict<ProblemDetails>>> WithFinishedPlan<T>(
-        IPlanDeskStore store, long planId, Func<PlanRecord, T> read)
+    internal static async Task<Results<Ok<T>, NotFound<ProblemDetails>, Conflict<ProblemDetails>>> WithFinishedPlanAsync<T>(
+        IPlanDeskStore store, long planId, Func<PlanRecord, Task<T>> read)
     {
         var record = await store.GetPlanAsync(planId, withDocuments: true);
         if (record is null)
@@ -138,7 +142,7 @@ internal static class PlanEndpoints
         }
         return record.State switch
         {
-            JobState.Succeeded => TypedResults.Ok(read(record)),
+            JobState.Succeeded => TypedResults.Ok(await read(record)),
             JobState.Queued or JobState.Running => Problems.Conflict("Plan not ready",
                 $"Plan {planId} is still {record.State}; poll GET /api/jobs/{planId} until its state is succeeded."),
             _ => Problems.Conflict("Plan has no result",
