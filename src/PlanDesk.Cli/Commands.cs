@@ -15,6 +15,7 @@ internal static class Commands
         BenchOneCommand.Create(),
         ServeCommand.Create(),
         KeysCommand.Create(),
+        NetworksCommand.Create(),
         LoadTestCommand.Create(),
     ];
 }

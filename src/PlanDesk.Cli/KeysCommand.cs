@@ -93,7 +93,8 @@ internal static class KeysCommand
         return command;
     }
 
-    private static async Task<int> WithStore(StoreSettings settings, Func<IPlanDeskStore, Task<int>> work)
+    /// <summary>Runs <paramref name="work"/> on the migrated store, turning a store failure into a message and exit code 1.</summary>
+    internal static async Task<int> WithStore(StoreSettings settings, Func<IPlanDeskStore, Task<int>> work)
     {
         var store = settings.CreateStore();
         try
@@ -103,7 +104,7 @@ internal static class KeysCommand
         }
         catch (DbException error)
         {
-            await Console.Error.WriteLineAsync($"keys: cannot use the store ({store.Description}): {error.Message}");
+            await Console.Error.WriteLineAsync($"plandesk: cannot use the store ({store.Description}): {error.Message}");
             return 1;
         }
         finally

@@ -54,7 +54,7 @@ internal static partial class NetworkEndpoints
     private static async Task<Results<Created<NetworkVersionResponse>, BadRequest<ProblemDetails>>> UploadVersion(
         string networkId, [FromBody] JsonElement document, HttpContext context, IPlanDeskStore store, INetworkReader reader, IClock clock)
     {
-        if (!NetworkIdShape().IsMatch(networkId))
+        if (!NetworkIds.IsValid(networkId))
         {
             return Problems.BadRequest("Network id not valid",
                 $"'{networkId}' is not a network id: use 1 to 64 lower-case letters, digits and hyphens, e.g. 'larkmoor-region'.");
@@ -87,6 +87,4 @@ internal static partial class NetworkEndpoints
     private static NotFound<ProblemDetails> UnknownNetwork(string networkId) =>
         Problems.NotFound("Network not found", $"No network '{networkId}' has been uploaded; GET /api/networks lists the networks.");
 
-    [GeneratedRegex("^[a-z0-9][a-z0-9-]{0,63}$")]
-    private static partial Regex NetworkIdShape();
 }
