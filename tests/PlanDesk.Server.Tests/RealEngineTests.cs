@@ -19,7 +19,7 @@ public sealed class RealEngineTests
         await using var factory = new PlanDeskFactory(database, realEngine: true);
         var scheduler = factory.ClientWith(await factory.AddKeyAsync(Role.Scheduler));
         var plant = factory.ClientWith(await factory.AddKeyAsync(Role.Plant, "larkmoor"));
-        var quickstart = File.ReadAllText(Path.Combine(RepositoryRoot(), "networks", "quickstart.json"));
+        var quickstart = File.ReadAllText(Path.Combine(Repository.Root, "networks", "quickstart.json"));
         Assert.Equal(HttpStatusCode.Created, (await scheduler.PostAsync("/api/networks/larkmoor/versions", JsonBody(quickstart))).StatusCode);
         // A reported tank level from the hour before the day starts (local midnight is 23:00 UTC) starts the plan.
         var lastHour = new ActualsHour { HourStart = Instant.FromUtc(2027, 3, 25, 22, 0), TankLevelsM3 = new Dictionary<string, double> { ["larkmoor-class-a"] = 1200 } };
@@ -38,17 +38,5 @@ public sealed class RealEngineTests
         Assert.Contains("tank larkmoor-class-a: starts at 1200 m3, as reported at 2027-03-26 00:00", summary.Notes);
         Assert.Equal(24, targets.Sheet.Hours.Count);
         Assert.Contains(targets.Sheet.Hours, h => h.TreatedM3 > 0);
-    }
-
-    private static string RepositoryRoot()
-    {
-        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
-        {
-            if (File.Exists(Path.Combine(folder.FullName, "PlanDesk.sln")))
-            {
-                return folder.FullName;
-            }
-        }
-        throw new InvalidOperationException($"PlanDesk.sln not found above {AppContext.BaseDirectory}");
     }
 }
