@@ -7,11 +7,34 @@ import { day } from '../format.js';
 const cache = new Map();
 
 /** Fetches a plan document once (summary, schematic, series, problems, check ...). Failed fetches are not kept. */
+// The service answers /summary with the plan's identity, its check verdict and notes beside the solve
+// summary itself; the views read one flat headline.
+function headlineOf(response) {
+  const summary = response.summary;
+  const costs = summary.costs;
+  const baseline = summary.baselineCost ?? null;
+  return {
+    ...response,
+    currency: summary.currency,
+    status: summary.status,
+    solveSeconds: summary.solveSeconds,
+    gapPercent: summary.gapPercent ?? null,
+    costs,
+    totalCost: costs.total,
+    operatingCost: costs.operating,
+    penaltyCost: costs.penalties,
+    baselineCost: baseline,
+    savingAgainstBaseline: baseline === null ? null : baseline - costs.total,
+    checkViolationCount: summary.checkViolations ?? 0,
+    problemCount: summary.problems.length,
+  };
+}
+
 export function planDocument(planId, name) {
   const key = `${planId}/${name}`;
   if (!cache.has(key)) {
     const path = name === 'plan' ? `/api/plans/${planId}` : `/api/plans/${planId}/${name}`;
-    const pending = api(path);
+    const pending = name === 'summary' ? api(path).then(headlineOf) : api(path);
     pending.catch(() => cache.delete(key));
     cache.set(key, pending);
   }
