@@ -64,17 +64,15 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             var dayByDayTask = planningCase.Horizon.DayCount > 1 && firstPlan is not null && !ProvenWithinGap(incumbent)
                 ? StartFixAndOptimise(backend, firstPlan, dayByDayNotes)
                 : null;
-            var (status, gapPercent) = (Solver.ResultStatus.NOT_SOLVED, options.GapPercent);
+            Solver.ResultStatus status;
+            double gapPercent;
             try
             {
-                if (!ProvenWithinGap(incumbent))
+                Report("solving");
+                (status, gapPercent) = SolveWhole(solver, backend);
+                if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
                 {
-                    Report("solving");
-                    (status, gapPercent) = SolveWhole(solver, backend);
-                    if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
-                    {
-                        whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
-                    }
+                    whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
                 }
             }
             finally
@@ -118,7 +116,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         return task.IsCompletedSuccessfully ? task.Result : null;
     }
 
-    // The relaxation bound alone already proves the plan within the asked gap: the whole MILP can add nothing.
+    // The relaxation bound alone already proves the first plan within the asked gap: fix-and-optimise can add nothing.
     private bool ProvenWithinGap(double? objective) =>
         objective is { } value && relaxationBound is { } bound && Bounds.GapPercent(value, Math.Min(bound, value)) <= options.GapPercent;
 
@@ -155,7 +153,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         var info = new SolveInfo
         {
             Status = SolveStatus.NoPlan,
-            Solver = $"{backend} via OR-Tools ({(whole is null && dayByDay is not null && status == Solver.ResultStatus.NOT_SOLVED ? "fix-and-optimise over days" : SolverBackend.Describe(status))})",
+            Solver = $"{backend} via OR-Tools ({SolverBackend.Describe(status)})",
             Variables = solver.NumVariables(),
             IntegerVariables = model.IntegerDecisions.Count,
             Constraints = solver.NumConstraints(),
