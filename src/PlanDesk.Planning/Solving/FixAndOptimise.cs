@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using Google.OrTools.LinearSolver;
 using PlanDesk.Core.Model;
 using PlanDesk.Planning.Model;
@@ -21,8 +20,10 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
     private const int MaximumPasses = 3;
 
     /// <summary>Improves a plan of objective <paramref name="startObjective"/> and integer values <paramref name="values"/>
-    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
-    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
+    /// until <paramref name="remainingSeconds"/> runs out or <paramref name="stop"/> is set (checked between windows);
+    /// returns the best plan found, or null when no window improved it.</summary>
+    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds,
+        CancellationToken cancellation, CancellationToken stop = default)
     {
         var days = planningCase.Horizon.DayCount;
         SolvedModel? best = null;
@@ -35,12 +36,12 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
             {
                 cancellation.ThrowIfCancellationRequested();
                 var seconds = remainingSeconds() / (days - day);
-                if (seconds < MinimumWindowSeconds)
+                if (seconds < MinimumWindowSeconds || stop.IsCancellationRequested)
                 {
                     break;
                 }
                 windows++;
-                var solved = SolveWindow(day, values, seconds, pass);
+                var solved = SolveWindow(day, values, seconds);
                 if (solved is null || solved.Objective >= Objective(best) - RelativeImprovement * Math.Max(1, Math.Abs(Objective(best))))
                 {
                     solved?.Dispose();
@@ -52,7 +53,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
                 improvedDays++;
                 improvedInPass = true;
             }
-            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days)
+            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days || stop.IsCancellationRequested)
             {
                 break;
             }
@@ -63,18 +64,12 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
         double Objective(SolvedModel? plan) => plan?.Objective ?? startObjective;
     }
 
-    private SolvedModel? SolveWindow(int day, Dictionary<string, double> values, double seconds, int pass)
+    private SolvedModel? SolveWindow(int day, Dictionary<string, double> values, double seconds)
     {
         var solver = SolverBackend.CreateMip(backend)!;
         var rule = new IntegerRule(d => d == day ? IntegerMode.Integer : IntegerMode.Fixed, values);
         var model = PlanModel.Build(solver, planningCase, rule);
-        var clock = Stopwatch.StartNew();
         var status = solver.Solve(SolverBackend.ConfigureMip(solver, backend, options, seconds, notes));
-        if (Environment.GetEnvironmentVariable("PLANDESK_TRACE") is not null)
-        {
-            notes.Add($"trace pass {pass} day {day}: {SolverBackend.Describe(status)} in {clock.Elapsed.TotalSeconds:0.0} s of {seconds:0.0}" +
-                (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE ? $", {solver.Objective().Value():0.00}" : ""));
-        }
         if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
         {
             return new SolvedModel(solver, model, solver.Objective().Value(), status);

@@ -61,8 +61,9 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             // second core): the whole MILP wins when it proves the gap in time, fix-and-optimise gives a better plan
             // than the first when it does not (see docs/formulation.md, "Scaling").
             var dayByDayNotes = new List<string>();
+            using var stopDayByDay = new CancellationTokenSource();
             var dayByDayTask = planningCase.Horizon.DayCount > 1 && firstPlan is not null && !ProvenWithinGap(incumbent)
-                ? StartFixAndOptimise(backend, firstPlan, dayByDayNotes)
+                ? StartFixAndOptimise(backend, firstPlan, dayByDayNotes, stopDayByDay.Token)
                 : null;
             Solver.ResultStatus status;
             double gapPercent;
@@ -73,6 +74,11 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
                 if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
                 {
                     whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
+                }
+                if (status == Solver.ResultStatus.OPTIMAL)
+                {
+                    // The whole MILP proved its gap: fix-and-optimise stops after its current window.
+                    stopDayByDay.Cancel();
                 }
             }
             finally
@@ -90,11 +96,11 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         }
     }
 
-    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes)
+    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes, CancellationToken stop)
     {
         var values = firstPlan.Model.IntegerValues();
         var objective = firstPlan.Objective;
-        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation),
+        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation, stop),
             CancellationToken.None);
     }
 
