@@ -20,10 +20,8 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
     private const int MaximumPasses = 3;
 
     /// <summary>Improves a plan of objective <paramref name="startObjective"/> and integer values <paramref name="values"/>
-    /// until <paramref name="remainingSeconds"/> runs out or <paramref name="stop"/> is set (checked between windows);
-    /// returns the best plan found, or null when no window improved it.</summary>
-    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds,
-        CancellationToken cancellation, CancellationToken stop = default)
+    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
+    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
     {
         var days = planningCase.Horizon.DayCount;
         SolvedModel? best = null;
@@ -36,7 +34,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
             {
                 cancellation.ThrowIfCancellationRequested();
                 var seconds = remainingSeconds() / (days - day);
-                if (seconds < MinimumWindowSeconds || stop.IsCancellationRequested)
+                if (seconds < MinimumWindowSeconds)
                 {
                     break;
                 }
@@ -53,7 +51,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
                 improvedDays++;
                 improvedInPass = true;
             }
-            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days || stop.IsCancellationRequested)
+            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days)
             {
                 break;
             }

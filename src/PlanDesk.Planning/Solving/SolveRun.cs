@@ -57,34 +57,20 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             {
                 Hint(solver, firstPlan.Solver);
             }
-            // Over several days, fix-and-optimise improves the first plan day by day beside the whole MILP (on the
-            // second core): the whole MILP wins when it proves the gap in time, fix-and-optimise gives a better plan
-            // than the first when it does not (see docs/formulation.md, "Scaling").
-            var dayByDayNotes = new List<string>();
-            using var stopDayByDay = new CancellationTokenSource();
-            var dayByDayTask = planningCase.Horizon.DayCount > 1 && firstPlan is not null && !ProvenWithinGap(incumbent)
-                ? StartFixAndOptimise(backend, firstPlan, dayByDayNotes, stopDayByDay.Token)
-                : null;
-            Solver.ResultStatus status;
-            double gapPercent;
-            try
+            Report("solving");
+            var (status, gapPercent) = SolveWhole(solver, backend);
+            if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
             {
-                Report("solving");
-                (status, gapPercent) = SolveWhole(solver, backend);
-                if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
-                {
-                    whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
-                }
-                if (status == Solver.ResultStatus.OPTIMAL)
-                {
-                    // The whole MILP proved its gap: fix-and-optimise stops after its current window.
-                    stopDayByDay.Cancel();
-                }
+                whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
             }
-            finally
+            else if (UsesFixAndOptimise(backend) && firstPlan is not null && !ProvenWithinGap(incumbent))
             {
-                dayByDay = Await(dayByDayTask);
+                // Over several days, the time the whole MILP leaves goes to improving the first plan day by day
+                // (see docs/formulation.md, "Scaling").
+                var dayByDayNotes = new List<string>();
+                dayByDay = Await(StartFixAndOptimise(backend, firstPlan, dayByDayNotes));
                 notes.AddRange(dayByDayNotes);
+                cancellation.ThrowIfCancellationRequested();
             }
             return Finish(backend, solver, model, status, gapPercent, whole, dayByDay, firstPlan);
         }
@@ -96,11 +82,15 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         }
     }
 
-    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes, CancellationToken stop)
+    // HiGHS returns nothing when it stops on its time limit, so over several days its second try is fix-and-optimise
+    // rather than the whole MILP at a looser gap. SCIP keeps its incumbent at the limit and runs once.
+    private bool UsesFixAndOptimise(string backend) => backend == SolverBackend.Highs && planningCase.Horizon.DayCount > 1;
+
+    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes)
     {
         var values = firstPlan.Model.IntegerValues();
         var objective = firstPlan.Objective;
-        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation, stop),
+        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation),
             CancellationToken.None);
     }
 
@@ -142,7 +132,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         var firstTry = Remaining() * HighsFirstTryShare;
         var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
         cancellation.ThrowIfCancellationRequested();
-        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds)
+        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds || UsesFixAndOptimise(backend))
         {
             return (first, options.GapPercent);
         }
