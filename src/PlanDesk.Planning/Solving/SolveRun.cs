@@ -10,8 +10,9 @@ namespace PlanDesk.Planning.Solving;
 
 /// <summary>
 /// One solve, in stages: build the MILP; solve its LP relaxation (HiGHS's bound) and round it into a first plan;
-/// solve the whole MILP in the time left (SCIP starts from the first plan); keep the better plan; explain it with
-/// a fixed-decision LP.
+/// solve the whole MILP in the time left (SCIP starts from the first plan); over several days, when HiGHS's first
+/// try finds nothing, improve the first plan by fix-and-optimise over days; keep the best plan; explain it with a
+/// fixed-decision LP.
 /// </summary>
 internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
 {
