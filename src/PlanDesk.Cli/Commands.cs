@@ -9,8 +9,13 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         SolveCommand.Create(),
+        CheckCommand.Create(),
         GenerateCommand.Create(),
         BenchCommand.Create(),
         BenchOneCommand.Create(),
+        ServeCommand.Create(),
+        KeysCommand.Create(),
+        NetworksCommand.Create(),
+        LoadTestCommand.Create(),
     ];
 }
