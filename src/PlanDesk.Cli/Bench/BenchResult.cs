@@ -17,7 +17,8 @@ internal sealed record BenchResult
     public int? Constraints { get; init; }
     /// <summary>Building the MILP, from the planner's progress reports.</summary>
     public double? BuildSeconds { get; init; }
-    /// <summary>Building plus solving until the first plan (a second solve stopped at any plan; the LP bound step left out).</summary>
+    /// <summary>Seconds until the planner had a first plan: its first progress report carrying an incumbent, or else a
+    /// second solve stopped at any plan (the LP bound step left out).</summary>
     public double? FirstPlanSeconds { get; init; }
     /// <summary>The whole planner call: build, bound, solve, extract, explain.</summary>
     public double? SolveSeconds { get; init; }

@@ -87,24 +87,21 @@ internal static class BenchRunner
             notes.Add("checker not available");
         }
 
-        if (benchCase.MeasureFirstPlan)
+        row = row with { FirstPlanSeconds = recorder.FirstIncumbentSeconds };
+        if (row.FirstPlanSeconds is null && benchCase.MeasureFirstPlan)
         {
-            row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options, recorder) };
+            row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options) };
         }
         return Finish(row, notes);
     }
 
-    // The planner reports no incumbents (OR-Tools' MPSolver has no MIP callback in .NET), so the time to a
-    // first plan is measured by a second solve that stops at any plan (a 100 % gap).
-    private static double? FirstPlanSeconds(PlanningCase planningCase, SolveOptions options, PhaseRecorder mainSolve)
+    // When the planner reports no plan before the end of its search (OR-Tools' MPSolver has no MIP callback
+    // in .NET), the time to a first plan is measured by a second solve that stops at any plan (a 100 % gap).
+    private static double? FirstPlanSeconds(PlanningCase planningCase, SolveOptions options)
     {
-        if (mainSolve.FirstIncumbentSeconds is { } reported)
-        {
-            return reported;
-        }
         var recorder = new PhaseRecorder();
         var clock = Stopwatch.StartNew();
-        var plan = Planner.Solve(planningCase, options with { GapPercent = 100 }, recorder);
+        var plan = Planner.Solve(planningCase, options with { GapPercent = 100, Explain = false }, recorder);
         var seconds = clock.Elapsed.TotalSeconds - recorder.BoundingSeconds;
         return plan.Solve.Status == SolveStatus.NoPlan ? null : seconds;
     }
