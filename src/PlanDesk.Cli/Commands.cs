@@ -9,6 +9,7 @@ internal static class Commands
     [
         ValidateCommand.Create(),
         SolveCommand.Create(),
+        CheckCommand.Create(),
         GenerateCommand.Create(),
         BenchCommand.Create(),
         BenchOneCommand.Create(),

@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using NodaTime;
 using NodaTime.Text;
+using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Loading;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
@@ -11,7 +12,8 @@ using Spectre.Console;
 
 namespace PlanDesk.Cli;
 
-/// <summary><c>plandesk solve NETWORK</c>: plans the horizon as one MILP, writes the plan, the per-plant day targets and a summary.</summary>
+/// <summary><c>plandesk solve NETWORK</c>: plans the horizon as one MILP (or by the operators' rules with <c>--method rules</c>),
+/// writes the plan, the per-plant day targets and a summary with the checker's verdict and the saving against the rules.</summary>
 internal static class SolveCommand
 {
     public const int PlanWritten = 0;
@@ -29,9 +31,14 @@ internal static class SolveCommand
         var output = new Option<string>("--out") { Description = "Where to write the plan (JSON).", DefaultValueFactory = _ => "plan.json" };
         var targets = new Option<string>("--targets") { Description = "Folder for the per-plant day targets (JSON, CSV, text).", DefaultValueFactory = _ => "targets" };
         var summaryJson = new Option<string?>("--summary-json") { Description = "Also write the summary as JSON to this file." };
+        var method = new Option<string>("--method")
+        {
+            Description = "milp: the least-cost plan (default); rules: what operators do without a planner (the baseline every saving is measured against).",
+            DefaultValueFactory = _ => MilpMethod,
+        };
         var command = new Command("solve", "Plan a horizon at least cost and write the plan, the plant targets and a summary.")
         {
-            network, start, days, timeLimit, gap, solver, output, targets, summaryJson,
+            network, start, days, timeLimit, gap, solver, output, targets, summaryJson, method,
         };
         command.SetAction(parse => Run(new SolveRequest(
             parse.GetValue(network)!,
@@ -45,11 +52,15 @@ internal static class SolveCommand
             },
             parse.GetValue(output)!,
             parse.GetValue(targets)!,
-            parse.GetValue(summaryJson))));
+            parse.GetValue(summaryJson),
+            parse.GetValue(method)!)));
         return command;
     }
 
-    public sealed record SolveRequest(string NetworkPath, string? Start, int? Days, SolveOptions Options, string PlanPath, string TargetsFolder, string? SummaryJsonPath);
+    public const string MilpMethod = "milp";
+
+    public sealed record SolveRequest(string NetworkPath, string? Start, int? Days, SolveOptions Options, string PlanPath, string TargetsFolder,
+        string? SummaryJsonPath, string Method = MilpMethod);
 
     /// <summary>Runs one solve; returns 0 with a plan, 1 for bad input (said on stderr), 2 when the solver found no plan.</summary>
     public static int Run(SolveRequest request, TextWriter? output = null, TextWriter? errors = null)
@@ -61,16 +72,18 @@ internal static class SolveCommand
         {
             return BadInput;
         }
-        if (InvalidOptions(request.Options) is { } optionProblem)
+        if (InvalidOptions(request) is { } optionProblem)
         {
             errors.WriteLine(optionProblem);
             return BadInput;
         }
 
-        var plan = SolveWithProgress(planningCase, request.Options, errors);
+        var rules = request.Method == RuleBasedBaseline.Method;
+        var plan = rules ? RuleBasedBaseline.Build(planningCase) : SolveWithProgress(planningCase, request.Options, errors);
         File.WriteAllText(request.PlanPath, PlanJson.Serialize(plan));
         var targetFiles = TargetWriters.WriteAll(PlantDayTargetsBuilder.Build(planningCase, plan), request.TargetsFolder);
-        var summary = PlanSummary.From(planningCase, plan);
+        // Every summary carries the independent checker's verdict and the saving against the rule-based baseline.
+        var summary = BaselineComparison.Of(planningCase, plan, rules ? plan : null).AddTo(PlanSummary.From(planningCase, plan));
         if (request.SummaryJsonPath is { } summaryPath)
         {
             File.WriteAllText(summaryPath, summary.ToJson());
@@ -130,8 +143,13 @@ internal static class SolveCommand
         return created.Case;
     }
 
-    private static string? InvalidOptions(SolveOptions options)
+    private static string? InvalidOptions(SolveRequest request)
     {
+        var options = request.Options;
+        if (request.Method != MilpMethod && request.Method != RuleBasedBaseline.Method)
+        {
+            return $"--method: '{request.Method}' is not offered; choose {MilpMethod} (the default) or {RuleBasedBaseline.Method}";
+        }
         if (!(options.TimeLimitSeconds > 0))
         {
             return $"--time-limit: {options.TimeLimitSeconds.ToString(CultureInfo.InvariantCulture)} s; give a positive number of seconds";

@@ -21,6 +21,7 @@ internal static class SolveSummaryView
             return;
         }
         console.Write(CostTable(summary));
+        console.Write(BaselineTable(summary));
         console.Write(EnergyTable(summary));
         if (summary.Permits.Count > 0)
         {
@@ -68,6 +69,25 @@ internal static class SolveSummaryView
         table.AddRow("[bold]total (objective)[/]", Money(costs.Total));
         return table;
     }
+
+    // The independent checker's verdict and the saving against what operators would do without a planner.
+    private static Table BaselineTable(PlanSummary summary)
+    {
+        var table = new Table().Title("Check and baseline").AddColumns("", "");
+        table.ShowHeaders = false;
+        table.AddRow("checker", summary.CheckViolations switch
+        {
+            null => "not run",
+            0 => "no violations",
+            var n => $"{n} violation{(n == 1 ? "" : "s")}: run plandesk check for the list",
+        });
+        table.AddRow("rule-based plan", summary.BaselineCost is { } baseline ? Amounts.Money(baseline, summary.Currency) : "-");
+        table.AddRow("saving (total)", Percent(summary.SavingPercent));
+        table.AddRow("saving (operating)", Percent(summary.OperatingSavingPercent));
+        return table;
+    }
+
+    private static string Percent(double? value) => value is { } p ? $"{p.ToString("0.0", CultureInfo.InvariantCulture)} %" : "-";
 
     private static Table EnergyTable(PlanSummary summary)
     {

@@ -1,3 +1,5 @@
+using PlanDesk.Core.Baseline;
+using PlanDesk.Core.Checking;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 
@@ -12,7 +14,11 @@ internal sealed record CheckVerdict(int Violations, int HardViolations);
 /// </summary>
 internal static class BenchComponents
 {
-    public static Func<PlanningCase, Plan>? Baseline => null;
+    public static Func<PlanningCase, Plan>? Baseline => RuleBasedBaseline.Build;
 
-    public static Func<PlanningCase, Plan, CheckVerdict>? Checker => null;
+    public static Func<PlanningCase, Plan, CheckVerdict>? Checker => (planningCase, plan) =>
+    {
+        var report = PlanChecker.Check(planningCase, plan);
+        return new CheckVerdict(report.Violations.Count, report.HardViolations.Count());
+    };
 }

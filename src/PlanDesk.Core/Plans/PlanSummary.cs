@@ -28,8 +28,10 @@ public sealed record PlanSummary
     public required IReadOnlyList<ProblemSummary> Problems { get; init; }
     /// <summary>Cost of the rule-based baseline on the same case (set by the baseline helper).</summary>
     public double? BaselineCost { get; init; }
-    /// <summary>(baseline − plan) / baseline in percent (set with <see cref="BaselineCost"/>).</summary>
+    /// <summary>(baseline − plan) / baseline in percent on the total objective, penalties included (set with <see cref="BaselineCost"/>).</summary>
     public double? SavingPercent { get; init; }
+    /// <summary>The same saving on operating cost alone: money actually paid (set with <see cref="BaselineCost"/>).</summary>
+    public double? OperatingSavingPercent { get; init; }
     /// <summary>Violations the independent checker found (set by the checker).</summary>
     public int? CheckViolations { get; init; }
 
