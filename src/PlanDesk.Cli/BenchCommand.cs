@@ -89,6 +89,6 @@ internal static class BenchCommand
             return 2;
         }
         AnsiConsole.MarkupLine($"wrote {Markup.Escape(Path.GetFullPath(csvPath))}");
-        return rows.Any(r => r.Status == BenchRunner.PlannerNotAvailable) ? 3 : 0;
+        return 0;
     }
 }
