@@ -20,6 +20,8 @@ internal sealed record BenchResult
     /// <summary>Seconds until the planner had a first plan: its first progress report carrying an incumbent, or else a
     /// second solve stopped at any plan (the LP bound step left out).</summary>
     public double? FirstPlanSeconds { get; init; }
+    /// <summary>Objective of the planner's first plan, when it reports one; compare with <see cref="Objective"/> to see what the MIP search added.</summary>
+    public double? FirstPlanObjective { get; init; }
     /// <summary>The whole planner call: build, bound, solve, extract, explain.</summary>
     public double? SolveSeconds { get; init; }
     /// <summary>optimal, feasible, noPlan, or failed (the case process gave no result; see the note).</summary>

@@ -66,7 +66,7 @@ internal static class BenchRunner
             notes.AddRange(plan.Problems.Take(1).Select(p => p.Message));
         }
 
-        row = row with { FirstPlanSeconds = recorder.FirstIncumbentSeconds };
+        row = row with { FirstPlanSeconds = recorder.FirstIncumbentSeconds, FirstPlanObjective = recorder.FirstIncumbent };
         if (row.FirstPlanSeconds is null && benchCase.MeasureFirstPlan)
         {
             row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options) };
