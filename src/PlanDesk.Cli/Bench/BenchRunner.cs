@@ -1,4 +1,6 @@
 using System.Diagnostics;
+using PlanDesk.Core.Baseline;
+using PlanDesk.Core.Checking;
 using PlanDesk.Core.Generation;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
@@ -9,8 +11,6 @@ namespace PlanDesk.Cli.Bench;
 /// <summary>Runs one benchmark case in this process: generate, baseline, solve, check, and time each.</summary>
 internal static class BenchRunner
 {
-    public const string PlannerNotAvailable = "planner not available";
-
     public static BenchResult Run(BenchCase benchCase)
     {
         var network = RegionGenerator.Generate(benchCase.Size, benchCase.Seed).Network;
@@ -30,32 +30,18 @@ internal static class BenchRunner
         }
         row = row with { Periods = planningCase.PeriodCount };
         var notes = new List<string>();
-
-        double? baselineCost = null;
-        if (BenchComponents.Baseline is { } baseline)
-        {
-            baselineCost = baseline(planningCase).Costs.Total;
-        }
-        else
-        {
-            notes.Add("baseline not available");
-        }
+        var baseline = RuleBasedBaseline.Build(planningCase);
 
         var options = new SolveOptions { Solver = benchCase.Solver, TimeLimitSeconds = benchCase.TimeLimitSeconds, GapPercent = benchCase.GapPercent };
         var recorder = new PhaseRecorder();
         var clock = Stopwatch.StartNew();
-        Plan plan;
-        try
-        {
-            plan = Planner.Solve(planningCase, options, recorder);
-        }
-        catch (NotImplementedException)
-        {
-            return Finish(row with { Status = PlannerNotAvailable, BaselineCost = baselineCost }, notes);
-        }
+        var plan = Planner.Solve(planningCase, options, recorder);
         var solveSeconds = clock.Elapsed.TotalSeconds;
         var info = plan.Solve;
         var hasPlan = info.Status != SolveStatus.NoPlan;
+        // Both plans costed by the checker's own accounting, as every solve summary shows them.
+        var comparison = BaselineComparison.Of(planningCase, plan, baseline);
+        var report = PlanChecker.Check(planningCase, plan);
         row = row with
         {
             Status = info.Status,
@@ -68,43 +54,33 @@ internal static class BenchRunner
             BestBound = Finite(info.BestBound),
             GapPercent = hasPlan ? Finite(info.GapPercent) : null,
             LpRelaxationBound = recorder.RelaxationBound,
-            BaselineCost = baselineCost,
-            Saving = hasPlan && baselineCost is { } cost ? cost - plan.Costs.Total : null,
-            SavingPercent = hasPlan && baselineCost is { } b && Math.Abs(b) > 1e-9 ? 100 * (b - plan.Costs.Total) / b : null,
+            BaselineCost = comparison.BaselineCost,
+            SavingPercent = comparison.SavingPercent,
+            OperatingSavingPercent = comparison.OperatingSavingPercent,
+            Violations = hasPlan ? report.Violations.Count : null,
+            HardViolations = hasPlan ? report.HardViolations.Count() : null,
+            BaselineViolations = comparison.BaselineCheckViolations,
         };
         if (!hasPlan)
         {
             notes.AddRange(plan.Problems.Take(1).Select(p => p.Message));
         }
 
-        if (hasPlan && BenchComponents.Checker is { } checker)
+        row = row with { FirstPlanSeconds = recorder.FirstIncumbentSeconds, FirstPlanObjective = recorder.FirstIncumbent };
+        if (row.FirstPlanSeconds is null && benchCase.MeasureFirstPlan)
         {
-            var verdict = checker(planningCase, plan);
-            row = row with { Violations = verdict.Violations, HardViolations = verdict.HardViolations };
-        }
-        else if (hasPlan)
-        {
-            notes.Add("checker not available");
-        }
-
-        if (benchCase.MeasureFirstPlan)
-        {
-            row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options, recorder) };
+            row = row with { FirstPlanSeconds = FirstPlanSeconds(planningCase, options) };
         }
         return Finish(row, notes);
     }
 
-    // The planner reports no incumbents (OR-Tools' MPSolver has no MIP callback in .NET), so the time to a
-    // first plan is measured by a second solve that stops at any plan (a 100 % gap).
-    private static double? FirstPlanSeconds(PlanningCase planningCase, SolveOptions options, PhaseRecorder mainSolve)
+    // When the planner reports no plan before the end of its search (OR-Tools' MPSolver has no MIP callback
+    // in .NET), the time to a first plan is measured by a second solve that stops at any plan (a 100 % gap).
+    private static double? FirstPlanSeconds(PlanningCase planningCase, SolveOptions options)
     {
-        if (mainSolve.FirstIncumbentSeconds is { } reported)
-        {
-            return reported;
-        }
         var recorder = new PhaseRecorder();
         var clock = Stopwatch.StartNew();
-        var plan = Planner.Solve(planningCase, options with { GapPercent = 100 }, recorder);
+        var plan = Planner.Solve(planningCase, options with { GapPercent = 100, Explain = false }, recorder);
         var seconds = clock.Elapsed.TotalSeconds - recorder.BoundingSeconds;
         return plan.Solve.Status == SolveStatus.NoPlan ? null : seconds;
     }

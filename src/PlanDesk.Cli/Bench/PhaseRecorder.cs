@@ -63,4 +63,7 @@ internal sealed class PhaseRecorder : IProgress<SolveProgress>
 
     /// <summary>Elapsed seconds at the first report carrying an incumbent, when the planner reports incumbents.</summary>
     public double? FirstIncumbentSeconds => Reports.FirstOrDefault(r => r.Incumbent is not null)?.ElapsedSeconds;
+
+    /// <summary>Objective of that first incumbent.</summary>
+    public double? FirstIncumbent => Reports.FirstOrDefault(r => r.Incumbent is not null)?.Incumbent;
 }
