@@ -13,5 +13,9 @@ internal static class Commands
         GenerateCommand.Create(),
         BenchCommand.Create(),
         BenchOneCommand.Create(),
+        ServeCommand.Create(),
+        KeysCommand.Create(),
+        NetworksCommand.Create(),
+        LoadTestCommand.Create(),
     ];
 }

@@ -60,6 +60,14 @@ internal static class EnergyChecks
                     $"plant {where}'s gas holder ends at {Findings.Q(p.HolderEndNm3[t])} Nm3, outside 0 to {Findings.Q(holderMost)} Nm3");
             }
         }
+        var last = findings.Case.PeriodCount - 1;
+        var startNm3 = Math.Min(biogas?.InitialHolderNm3 ?? 0, holderMost);
+        if (last >= 0 && tol.Below(p.HolderEndNm3[last], startNm3))
+        {
+            findings.AtPeriod(ViolationKind.HolderEndBelowStart, where, last, startNm3 - p.HolderEndNm3[last], "Nm3", startNm3,
+                $"plant {where}'s gas holder ends the horizon at {Findings.Q(p.HolderEndNm3[last])} Nm3, below the {Findings.Q(startNm3)} Nm3 " +
+                "it started with: the plan burns stored gas that the next plan would miss");
+        }
     }
 
     private static void CheckElectricity(Findings findings, Plant plant, Plans.PlantPlan p, PlantAccounts accounts)

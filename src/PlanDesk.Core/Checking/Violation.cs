@@ -87,6 +87,7 @@ public static class ViolationKind
     public const string EngineSize = "engineSize";
     public const string HolderBalance = "holderBalance";
     public const string HolderLimits = "holderLimits";
+    public const string HolderEndBelowStart = "holderEndBelowStart";
     public const string ElectricityBalance = "electricityBalance";
 
     // Cost.

@@ -62,7 +62,10 @@ internal sealed partial class PlanModel
         var engine = NumVar(0, biogas.EngineKw * PeriodHours, Name("engine", plant, P(t)));
         var gas = NumVar(0, double.PositiveInfinity, Name("gas-to-engine", plant, P(t)));
         var flare = NumVar(0, double.PositiveInfinity, Name("flare", plant, P(t)));
-        var holder = NumVar(0, biogas.HolderNm3, Name("holder", plant, P(t)));
+        // The holder may not end the horizon below its start: gas burnt from the holder is not free, and a plan
+        // that empties it would only look cheaper than one that keeps it (always feasible: flare less, burn less).
+        var holderLeast = t == Horizon.Periods.Count - 1 ? Math.Min(biogas.InitialHolderNm3, biogas.HolderNm3) : 0;
+        var holder = NumVar(holderLeast, biogas.HolderNm3, Name("holder", plant, P(t)));
         Engine[(plant, t)] = engine;
         GasToEngine[(plant, t)] = gas;
         Flare[(plant, t)] = flare;

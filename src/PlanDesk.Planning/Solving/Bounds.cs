@@ -9,7 +9,7 @@ internal static class Bounds
     private const double HighsAbsoluteGap = 1e-6;
 
     /// <summary>
-    /// SCIP reports a true bound. HiGHS's wrapper reports the objective as its bound, so for HiGHS the bound is
+    /// SCIP reports a true bound; the LP relaxation's optimum is one too, whichever backend. HiGHS's wrapper reports the objective as its bound, so for HiGHS the bound is
     /// the better of the LP relaxation's optimum and, when HiGHS says optimal, what its stopping rule proves:
     /// it stops only once (objective − bound) ≤ max(gap·|objective|, absolute gap).
     /// </summary>
@@ -18,16 +18,16 @@ internal static class Bounds
     public static double Best(string backend, Solver.ResultStatus status, double? milpObjective, double reportedBound,
         double? relaxationBound, double gapPercent, double objective, List<string> notes)
     {
-        if (backend == SolverBackend.Scip)
-        {
-            return milpObjective.HasValue && double.IsFinite(reportedBound) ? Math.Min(objective, reportedBound) : double.NaN;
-        }
         var candidates = new List<(double Bound, string Source)>();
         if (relaxationBound is { } relaxed)
         {
             candidates.Add((relaxed, "the LP relaxation"));
         }
-        if (status == Solver.ResultStatus.OPTIMAL && milpObjective is { } stopped)
+        if (backend == SolverBackend.Scip && milpObjective.HasValue && double.IsFinite(reportedBound))
+        {
+            candidates.Add((reportedBound, "SCIP's best bound"));
+        }
+        if (backend == SolverBackend.Highs && status == Solver.ResultStatus.OPTIMAL && milpObjective is { } stopped)
         {
             var gap = Math.Max(gapPercent, 0) / 100.0;
             candidates.Add((stopped - Math.Max(gap * Math.Abs(stopped), HighsAbsoluteGap), $"HiGHS's stopping rule at a {gapPercent:0.###} % gap"));

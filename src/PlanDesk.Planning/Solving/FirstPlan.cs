@@ -80,7 +80,7 @@ internal static class FirstPlan
         return plan;
     }
 
-    private static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,
+    internal static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,
         double timeLimitSeconds, List<string> notes)
     {
         var solver = SolverBackend.CreateRelaxation(options, timeLimitSeconds, notes);

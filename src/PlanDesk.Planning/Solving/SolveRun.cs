@@ -10,8 +10,9 @@ namespace PlanDesk.Planning.Solving;
 
 /// <summary>
 /// One solve, in stages: build the MILP; solve its LP relaxation (HiGHS's bound) and round it into a first plan;
-/// solve the whole MILP in the time left (SCIP starts from the first plan); keep the better plan; explain it with
-/// a fixed-decision LP.
+/// solve the whole MILP in the time left (SCIP starts from the first plan); over several days, when HiGHS's first
+/// try finds nothing, improve the first plan by fix-and-optimise over days; keep the best plan; explain it with a
+/// fixed-decision LP.
 /// </summary>
 internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
 {
@@ -42,6 +43,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         Report("building the model");
         var solver = SolverBackend.CreateMip(backend)!;
         SolvedModel? firstPlan = null;
+        SolvedModel? dayByDay = null;
         SolvedModel? whole = null;
         try
         {
@@ -50,26 +52,70 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             Report("relaxation and first plan");
             firstPlan = RelaxAndRound(backend);
             incumbent = firstPlan?.Objective;
+            cancellation.ThrowIfCancellationRequested();
+
             if (backend == SolverBackend.Scip && firstPlan is not null)
             {
                 Hint(solver, firstPlan.Solver);
             }
-            cancellation.ThrowIfCancellationRequested();
-
             Report("solving");
             var (status, gapPercent) = SolveWhole(solver, backend);
             if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
             {
                 whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
             }
-            return Finish(backend, solver, model, status, gapPercent, whole, firstPlan);
+            else if (UsesFixAndOptimise(backend) && firstPlan is not null && !ProvenWithinGap(incumbent))
+            {
+                // Over several days, the time the whole MILP leaves goes to improving the first plan day by day
+                // (see docs/formulation.md, "Scaling").
+                var dayByDayNotes = new List<string>();
+                dayByDay = Await(StartFixAndOptimise(backend, firstPlan, dayByDayNotes));
+                notes.AddRange(dayByDayNotes);
+                cancellation.ThrowIfCancellationRequested();
+            }
+            return Finish(backend, solver, model, status, gapPercent, whole, dayByDay, firstPlan);
         }
         finally
         {
             firstPlan?.Dispose();
+            dayByDay?.Dispose();
             solver.Dispose();
         }
     }
+
+    // HiGHS returns nothing when it stops on its time limit, so over several days its second try is fix-and-optimise
+    // rather than the whole MILP at a looser gap. SCIP keeps its incumbent at the limit and runs once.
+    private bool UsesFixAndOptimise(string backend) => backend == SolverBackend.Highs && planningCase.Horizon.DayCount > 1;
+
+    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes)
+    {
+        var values = firstPlan.Model.IntegerValues();
+        var objective = firstPlan.Objective;
+        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation),
+            CancellationToken.None);
+    }
+
+    // Waits for fix-and-optimise while reporting progress; a cancelled or failed run gives no plan.
+    private SolvedModel? Await(Task<SolvedModel?>? task)
+    {
+        if (task is null)
+        {
+            return null;
+        }
+        while (!((IAsyncResult)task).AsyncWaitHandle.WaitOne(ProgressInterval))
+        {
+            Report("solving day by day");
+        }
+        if (task.IsFaulted)
+        {
+            notes.Add($"fix-and-optimise stopped: {task.Exception!.GetBaseException().Message}");
+        }
+        return task.IsCompletedSuccessfully ? task.Result : null;
+    }
+
+    // The relaxation bound alone already proves the first plan within the asked gap: fix-and-optimise can add nothing.
+    private bool ProvenWithinGap(double? objective) =>
+        objective is { } value && relaxationBound is { } bound && Bounds.GapPercent(value, Math.Min(bound, value)) <= options.GapPercent;
 
     /// <summary>
     /// HiGHS through OR-Tools 9.15 returns no solution at all when it stops on the time limit (status 99), even
@@ -87,7 +133,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         var firstTry = Remaining() * HighsFirstTryShare;
         var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
         cancellation.ThrowIfCancellationRequested();
-        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds)
+        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds || UsesFixAndOptimise(backend))
         {
             return (first, options.GapPercent);
         }
@@ -98,7 +144,8 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         return (second, looser);
     }
 
-    private Plan Finish(string backend, Solver solver, PlanModel model, Solver.ResultStatus status, double gapPercent, SolvedModel? whole, SolvedModel? firstPlan)
+    private Plan Finish(string backend, Solver solver, PlanModel model, Solver.ResultStatus status, double gapPercent, SolvedModel? whole,
+        SolvedModel? dayByDay, SolvedModel? firstPlan)
     {
         var info = new SolveInfo
         {
@@ -109,17 +156,22 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             Constraints = solver.NumConstraints(),
             Notes = notes,
         };
-        // Prefer the whole MILP's plan unless the first plan is strictly better.
-        var chosen = whole is not null && (firstPlan is null || whole.Objective <= firstPlan.Objective + 1e-9 * Math.Max(1, Math.Abs(whole.Objective)))
-            ? whole
-            : firstPlan;
+        // Prefer the whole MILP's plan, then fix-and-optimise's, unless a later one is strictly better.
+        var chosen = new[] { whole, dayByDay, firstPlan }.Where(p => p is not null)
+            .Aggregate((SolvedModel?)null, (best, p) => best is null || p!.Objective < best.Objective - 1e-9 * Math.Max(1, Math.Abs(best.Objective)) ? p : best);
         if (chosen is null)
         {
             return EmptyPlans.NoPlan(planningCase, info with { SolveSeconds = clock.Elapsed.TotalSeconds },
                 $"the {backend} solver found no plan within {options.TimeLimitSeconds:0.#} s ({SolverBackend.Describe(status)}); " +
                 "allow a longer time limit, a larger gap or a shorter horizon", model.DataProblems);
         }
-        if (chosen == firstPlan)
+        if (chosen == dayByDay)
+        {
+            notes.Add(whole is null
+                ? "the whole MILP found no plan in time: this is the first plan improved by fix-and-optimise over days"
+                : "fix-and-optimise over days found a better plan than the whole MILP in time");
+        }
+        else if (chosen == firstPlan)
         {
             notes.Add(whole is null
                 ? $"the whole MILP found no plan in time ({SolverBackend.Describe(status)}): this is the first plan rounded from the LP relaxation"
@@ -153,10 +205,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             notes.Add($"the LP relaxation was not solved ({SolverBackend.Describe(status)}): no bound from it and no first plan");
             return null;
         }
-        if (backend == SolverBackend.Highs)
-        {
-            relaxationBound = lp.Objective().Value();
-        }
+        relaxationBound = lp.Objective().Value();
         return FirstPlan.Build(planningCase, relaxed, options, Remaining() * FirstPlanTimeShare, notes);
     }
 

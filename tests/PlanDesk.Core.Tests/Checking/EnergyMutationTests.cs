@@ -33,18 +33,42 @@ public class EnergyMutationTests
         var plan = Valid();
         var p = plan.Plants[0];
         // 100 Nm3 × 6 kWh/Nm3 × 0.36 = 216 kWh in an hour from a 180 kW engine; the holder gives the extra 50 Nm3.
+        // The last hour burns 50 Nm3 less (108 kWh less), so the holder ends where it started.
         p.GasToEngineNm3[2] = 100;
         p.EngineKWh[2] = 216;
-        for (var t = 2; t < p.HolderEndNm3.Length; t++)
+        var last = p.HolderEndNm3.Length - 1;
+        for (var t = 2; t < last; t++)
         {
             p.HolderEndNm3[t] -= 50;
         }
+        p.GasToEngineNm3[last] -= 50;
+        p.EngineKWh[last] -= 108;
 
         var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
 
         var found = Assert.Single(report.Violations);
         Assert.Equal((ViolationKind.EngineSize, Plant, (int?)2), (found.Kind, found.Where, found.Period));
         Assert.Equal(36, found.Amount, 6);
+    }
+
+    [Fact]
+    public void HolderEmptiedByTheEndOfTheHorizonIsAHolderEndViolation()
+    {
+        var plan = Valid();
+        var p = plan.Plants[0];
+        var last = p.HolderEndNm3.Length - 1;
+        var start = SmallNetwork.Case().Network.Plant(SmallNetwork.Norwick).Biogas!.InitialHolderNm3;
+        // Burn 20 Nm3 more in the last hour than arrives (20 Nm3 × 6 kWh/Nm3 × 0.36 = 43.2 kWh more, still within
+        // the engine's 180 kWh): the rules keep the holder at its start level, so it now ends 20 Nm3 below it.
+        p.GasToEngineNm3[last] += 20;
+        p.EngineKWh[last] += 43.2;
+        p.HolderEndNm3[last] -= 20;
+
+        var report = PlanChecker.Check(_case, PlanRestate.Flows(_case, plan));
+
+        var found = Assert.Single(report.Violations);
+        Assert.Equal((ViolationKind.HolderEndBelowStart, Plant, (int?)last), (found.Kind, found.Where, found.Period));
+        Assert.Equal(start - p.HolderEndNm3[last], found.Amount, 6);
     }
 
     [Fact]

@@ -1,0 +1,78 @@
+using Google.OrTools.LinearSolver;
+using PlanDesk.Core.Model;
+using PlanDesk.Planning.Model;
+
+namespace PlanDesk.Planning.Solving;
+
+/// <summary>
+/// Fix-and-optimise over local days: starting from a complete plan (the first plan), the full-horizon model is
+/// solved with one day's on/off decisions free and every other day's fixed to the plan's; a better solution
+/// becomes the plan, and the next day is freed. Every window has the whole horizon's constraints (tanks, monthly
+/// caps, end volumes, the demand-charge peak) and every accepted window is a complete plan no worse than the one
+/// before, so a window that finds nothing in time (HiGHS then returns no solution at all) loses nothing. Passes
+/// over the days repeat while one improves and time is left. See docs/formulation.md, "Scaling".
+/// </summary>
+internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, SolveOptions options, List<string> notes)
+{
+    // A window is worth trying only with at least this much time; it stops improving below this relative gain.
+    private const double MinimumWindowSeconds = 1.0;
+    private const double RelativeImprovement = 1e-6;
+    private const int MaximumPasses = 3;
+
+    /// <summary>Improves a plan of objective <paramref name="startObjective"/> and integer values <paramref name="values"/>
+    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
+    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
+    {
+        var days = planningCase.Horizon.DayCount;
+        SolvedModel? best = null;
+        var improvedDays = 0;
+        var windows = 0;
+        for (var pass = 0; pass < MaximumPasses; pass++)
+        {
+            var improvedInPass = false;
+            for (var day = 0; day < days; day++)
+            {
+                cancellation.ThrowIfCancellationRequested();
+                var seconds = remainingSeconds() / (days - day);
+                if (seconds < MinimumWindowSeconds)
+                {
+                    break;
+                }
+                windows++;
+                var solved = SolveWindow(day, values, seconds);
+                if (solved is null || solved.Objective >= Objective(best) - RelativeImprovement * Math.Max(1, Math.Abs(Objective(best))))
+                {
+                    solved?.Dispose();
+                    continue;
+                }
+                best?.Dispose();
+                best = solved;
+                values = solved.Model.IntegerValues();
+                improvedDays++;
+                improvedInPass = true;
+            }
+            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days)
+            {
+                break;
+            }
+        }
+        notes.Add($"fix-and-optimise over days: {improvedDays} of {windows} day windows improved the plan");
+        return best;
+
+        double Objective(SolvedModel? plan) => plan?.Objective ?? startObjective;
+    }
+
+    private SolvedModel? SolveWindow(int day, Dictionary<string, double> values, double seconds)
+    {
+        var solver = SolverBackend.CreateMip(backend)!;
+        var rule = new IntegerRule(d => d == day ? IntegerMode.Integer : IntegerMode.Fixed, values);
+        var model = PlanModel.Build(solver, planningCase, rule);
+        var status = solver.Solve(SolverBackend.ConfigureMip(solver, backend, options, seconds, notes));
+        if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
+        {
+            return new SolvedModel(solver, model, solver.Objective().Value(), status);
+        }
+        solver.Dispose();
+        return null;
+    }
+}
