@@ -47,17 +47,8 @@ public static class RuleBasedBaseline
     {
         var planningCase = state.Case;
         var network = planningCase.Network;
-        var horizon = planningCase.Horizon;
-        return new Plan
+        return Plan.For(planningCase, Method, new SolveInfo { Status = SolveStatus.Feasible, Solver = Method, Objective = costs.Total }) with
         {
-            NetworkName = network.Name,
-            StartDate = horizon.StartDate,
-            Days = horizon.DayCount,
-            PeriodMinutes = horizon.PeriodMinutes,
-            PeriodStarts = horizon.Periods.Select(p => p.Start).ToList(),
-            Method = Method,
-            Currency = network.Currency,
-            Solve = new SolveInfo { Status = SolveStatus.Feasible, Solver = Method, Objective = costs.Total },
             Plants = network.Plants.Select(p => new PlantPlan
             {
                 Plant = p.Id,

@@ -34,6 +34,30 @@ public sealed record Plan
     public IReadOnlyList<MarginalWaterCost> MarginalWaterCosts { get; init; } = [];
     /// <summary>Limits that bind in the plan (stage at capacity, tank full, permit cap ...).</summary>
     public IReadOnlyList<BindingLimit> BindingLimits { get; init; } = [];
+
+    /// <summary>A plan for <paramref name="planningCase"/>'s horizon with no decisions yet: the header every producer
+    /// shares; fill the sections with a <c>with</c> expression.</summary>
+    public static Plan For(PlanningCase planningCase, string method, SolveInfo solve)
+    {
+        var horizon = planningCase.Horizon;
+        return new Plan
+        {
+            NetworkName = planningCase.Network.Name,
+            StartDate = horizon.StartDate,
+            Days = horizon.DayCount,
+            PeriodMinutes = horizon.PeriodMinutes,
+            PeriodStarts = horizon.Periods.Select(p => p.Start).ToList(),
+            Method = method,
+            Currency = planningCase.Network.Currency,
+            Solve = solve,
+            Plants = [],
+            Stages = [],
+            Tanks = [],
+            Pipelines = [],
+            Customers = [],
+            Costs = new CostBreakdown(),
+        };
+    }
 }
 
 /// <summary>How the plan was obtained. Status is one of optimal, feasible, noPlan.</summary>

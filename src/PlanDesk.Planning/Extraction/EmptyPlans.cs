@@ -8,23 +8,8 @@ internal static class EmptyPlans
 {
     public static Plan NoPlan(PlanningCase planningCase, SolveInfo info, string reason, IEnumerable<PlanProblem>? dataProblems = null)
     {
-        var horizon = planningCase.Horizon;
-        return new Plan
+        return Plan.For(planningCase, "milp", info with { Status = SolveStatus.NoPlan }) with
         {
-            NetworkName = planningCase.Network.Name,
-            StartDate = horizon.StartDate,
-            Days = horizon.DayCount,
-            PeriodMinutes = horizon.PeriodMinutes,
-            PeriodStarts = horizon.Periods.Select(p => p.Start).ToList(),
-            Method = "milp",
-            Currency = planningCase.Network.Currency,
-            Solve = info with { Status = SolveStatus.NoPlan },
-            Plants = [],
-            Stages = [],
-            Tanks = [],
-            Pipelines = [],
-            Customers = [],
-            Costs = new CostBreakdown(),
             Problems = [.. dataProblems ?? [], new PlanProblem("noPlan", planningCase.Network.Name, null, 0, "", $"no plan: {reason}")],
         };
     }

@@ -15,18 +15,9 @@ internal static class PlanExtractor
     {
         var planningCase = model.Case;
         var network = planningCase.Network;
-        var horizon = planningCase.Horizon;
         var periods = planningCase.PeriodCount;
-        return new Plan
+        return Plan.For(planningCase, "milp", info) with
         {
-            NetworkName = network.Name,
-            StartDate = horizon.StartDate,
-            Days = horizon.DayCount,
-            PeriodMinutes = horizon.PeriodMinutes,
-            PeriodStarts = horizon.Periods.Select(p => p.Start).ToList(),
-            Method = "milp",
-            Currency = network.Currency,
-            Solve = info,
             Plants = network.Plants.Select(p => ExtractPlant(model, p, periods)).ToList(),
             Stages = network.Stages.Select(s => ExtractStage(model, s, periods)).ToList(),
             Tanks = network.Tanks.Select(k => new TankPlan { Tank = k.Id, EndVolumeM3 = Values(periods, t => model.Volume[(k.Id, t)]) }).ToList(),
