@@ -95,6 +95,32 @@ public class PermitTests
         Assert.Equal(188.16, PlanFigures.DayLoadKg(planningCase, plan, new PlantId("mill"), nitrogen, 0), 1e-3);
     }
 
+    // The LP relaxation must not make a small excess vanish by running a sliver of a dearer level.
+    // Same plant, tight now at 0.40 kWh/m3 (960 EUR), cap 286 kg. Hand working: standard 288 kg pays 2 kg × 200 EUR
+    // = 400 EUR on top of 480 EUR = 880 EUR, cheaper than tight's 960 EUR. With the load capped only in total, the
+    // relaxation would run 1/48 of the day's level as tight (500 m3 at 8 mg/L instead of 12 saves the 2 kg) for
+    // about 482 EUR; with each level's excess against its share of the cap, the relaxation is the integer optimum.
+    [Fact]
+    public void RelaxationCannotMeetACapWithAFractionOfADearerLevel()
+    {
+        IReadOnlyList<TreatmentLevel> levels =
+        [
+            Build.Level("standard", nitrogenMgPerL: 12, aerationKWhPerM3: 0.20),
+            Build.Level("tight", nitrogenMgPerL: 8, aerationKWhPerM3: 0.40),
+        ];
+        var network = Build.Network(Build.FlatTariff(100),
+            [Build.Plant(influentM3PerHour: 1000, levels: levels, permit: new Permit { DailyTotalNitrogenKg = 286 })]);
+        var planningCase = Build.Case(network);
+        using var lp = Google.OrTools.LinearSolver.Solver.CreateSolver("GLOP");
+        Model.PlanModel.Build(lp, planningCase, Model.IntegerMode.Relaxed);
+
+        Assert.Equal(Google.OrTools.LinearSolver.Solver.ResultStatus.OPTIMAL, lp.Solve());
+        Assert.Equal(880.0, lp.Objective().Value(), 880.0 * 1e-6);
+        var plan = Build.Solve(planningCase);
+        Assert.Equal(new LevelId("standard"), plan.Plants[0].LevelByDay[0]);
+        Assert.Equal(880.0, plan.Costs.Total, 880.0 * 1e-3);
+    }
+
     // Monthly cap 4 600 kg with 4 400 kg already discharged this month leaves 200 kg for the day.
     // Hand working: standard 288 kg > 200 (88 kg × 200 EUR), tight 192 kg ≤ 200 → tight at 624 EUR, no excess.
     [Fact]

@@ -68,9 +68,10 @@ internal sealed partial class PlanModel
         foreach (var day in Horizon.Days)
         {
             var date = DayLabel(day.Index);
-            // Wmax: secondary effluent never exceeds influent; tank-fed stages add at most their full feed.
-            var maxM3 = day.PeriodIndices.Sum(t => influent[t] + rejecting.Where(s => s.FeedTank is not null)
+            // Secondary effluent never exceeds what was treated; tank-fed stages add at most their full feed.
+            var tankFedMaxM3 = day.PeriodIndices.Sum(t => rejecting.Where(s => s.FeedTank is not null)
                 .Sum(s => s.NutrientRejectionFraction * s.UnitMaxFlowM3PerHour * PeriodHours * Case.AvailableUnits[s.Id][t]));
+            var maxM3 = day.PeriodIndices.Sum(t => influent[t]) + tankFedMaxM3;
             var split = EqualRow(0, Name("nutrient-volume", plant.Id, date));
             foreach (var t in day.PeriodIndices)
             {
@@ -85,9 +86,17 @@ internal sealed partial class PlanModel
                 var atLevel = NumVar(0, maxM3, Name("nutrient-volume-at", plant.Id, date, level.Id));
                 NutrientVolumeAtLevel[(plant.Id, day.Index, level.Id)] = atLevel;
                 split.Add(atLevel, -1);
-                AtMostRow(0, Name("nutrient-volume-gate", plant.Id, date, level.Id))
+                // W[d,m] ≤ Σt T[t,m] + tank-fed most·y[d,m]: at most what level m treated that day. It implies
+                // W[d,m] ≤ Wmax·y[d,m] (T[t,m] is gated by y) and ties each level's share of the outfall volume to
+                // its share of the treated volume, which keeps the relaxation from sending the volume to one level
+                // and the level's fraction to another.
+                var gate = AtMostRow(0, Name("nutrient-volume-gate", plant.Id, date, level.Id))
                     .Add(atLevel, 1)
-                    .Add(LevelOn[(plant.Id, day.Index, level.Id)], -maxM3);
+                    .Add(LevelOn[(plant.Id, day.Index, level.Id)], -tankFedMaxM3);
+                foreach (var t in day.PeriodIndices)
+                {
+                    gate.Add(TreatedAtLevel[(plant.Id, t, level.Id)], -1);
+                }
             }
         }
     }
@@ -102,6 +111,7 @@ internal sealed partial class PlanModel
                 DailyLoadExcess[(plant.Id, nutrient.Key, day.Index)] = excess;
                 var row = AtMostRow(dailyCap, Name($"{nutrient.Key}-daily", plant.Id, DayLabel(day.Index))).Add(excess, -1);
                 AddDayLoad(row, plant, nutrient, day);
+                AddExcessByLevel(plant, nutrient, day, dailyCap, excess);
                 Costs.Add(CostComponent.PermitPenalty, excess, Penalties.PermitExcessPerKg);
             }
         }
@@ -120,6 +130,32 @@ internal sealed partial class PlanModel
                 }
                 Costs.Add(CostComponent.PermitPenalty, excess, Penalties.PermitExcessPerKg);
             }
+        }
+    }
+
+    /// <summary>
+    /// The day's excess split by level, ε ≥ Σm ε[m] with ε[m] ≥ c_m·W[d,m]/1000 − cap·y[d,m]: valid for every integer
+    /// level choice (only the chosen level's term can be positive, and it leaves out the bypass) and the perspective
+    /// of each level's own excess. Without it the relaxation blends a low-N and a low-P level on the same day and
+    /// meets both caps, which no single level does (see docs/formulation.md, "Scaling").
+    /// </summary>
+    private void AddExcessByLevel(Plant plant, PermitNutrient nutrient, PlanDay day, double dailyCap, Variable excess)
+    {
+        var levels = AllowedLevels[plant.Id];
+        if (levels.Count < 2)
+        {
+            return;
+        }
+        var date = DayLabel(day.Index);
+        var sum = AtLeastRow(0, Name($"{nutrient.Key}-daily-excess-split", plant.Id, date)).Add(excess, 1);
+        foreach (var level in levels)
+        {
+            var atLevel = NumVar(0, double.PositiveInfinity, Name($"{nutrient.Key}-daily-excess-at", plant.Id, date, level.Id));
+            sum.Add(atLevel, -1);
+            AtLeastRow(0, Name($"{nutrient.Key}-daily-excess-level", plant.Id, date, level.Id))
+                .Add(atLevel, 1)
+                .Add(NutrientVolumeAtLevel[(plant.Id, day.Index, level.Id)], -nutrient.EffluentMgPerL(level) / 1000.0)
+                .Add(LevelOn[(plant.Id, day.Index, level.Id)], dailyCap);
         }
     }
 
