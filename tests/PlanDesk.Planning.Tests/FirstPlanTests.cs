@@ -70,4 +70,24 @@ public class FirstPlanTests
         Assert.All(Enumerable.Range(0, 24).Where(t => running[t] == 1 && (t == 0 || running[t - 1] == 0)),
             start => Assert.True(running.Skip(start).Take(4).All(n => n == 1), $"run from {start} shorter than 4 h"));
     }
+
+    // Dips of at most 2 periods between periods with at least k units are filled to k; a longer dip, a dip at the
+    // horizon's edge and a dip through an outage are left alone.
+    [Theory]
+    [InlineData("2202", "2222", "2222", 2, true)]
+    [InlineData("21012", "22222", "22222", 3, true)]
+    [InlineData("21012", "21112", "22222", 2, true)]
+    [InlineData("20002", "20002", "22222", 2, false)]
+    [InlineData("0022", "0022", "2222", 2, false)]
+    [InlineData("2002", "2002", "2002", 2, false)]
+    [InlineData("2002", "2112", "2212", 2, true)]
+    public void ShortDipsAreHeldWhereUnitsAreAvailable(string before, string after, string available, int maxGapPeriods, bool changed)
+    {
+        var units = before.Select(c => c - '0').ToArray();
+
+        var result = FirstPlan.FillShortDips(units, maxGapPeriods, available.Select(c => c - '0').ToArray());
+
+        Assert.Equal(after, string.Concat(units));
+        Assert.Equal(changed, result);
+    }
 }

@@ -26,15 +26,100 @@ internal static class FirstPlan
 
     public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes)
     {
+        var clock = System.Diagnostics.Stopwatch.StartNew();
         var rounded = Round(relaxed);
         var plan = SolveFixed(planningCase, rounded, options, timeLimitSeconds, notes);
         if (plan is not null)
         {
-            return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds, notes);
+            (plan, rounded) = HoldUnitsThroughDips(planningCase, relaxed, plan, rounded, options, timeLimitSeconds - clock.Elapsed.TotalSeconds);
+            return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds - clock.Elapsed.TotalSeconds, notes);
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
         var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
         return SolveFixed(planningCase, levelsOnly, options, timeLimitSeconds, notes);
+    }
+
+    /// <summary>
+    /// Rounding each period on its own switches units off and on with every dip in the relaxed flow, and each
+    /// restart costs its start-up. Holding the units through dips of up to a few hours, then re-solving the flows,
+    /// is tried for each gap length in turn and kept while it makes the plan cheaper (the fixed LP decides whether
+    /// the held units' minimum flow is worth their saved starts).
+    /// </summary>
+    private static (SolvedModel Plan, Dictionary<string, double> Values) HoldUnitsThroughDips(PlanningCase planningCase, PlanModel relaxed,
+        SolvedModel plan, Dictionary<string, double> values, SolveOptions options, double timeLimitSeconds)
+    {
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        foreach (var gapHours in HoldGapHours)
+        {
+            var remaining = timeLimitSeconds - clock.Elapsed.TotalSeconds;
+            if (remaining < 1)
+            {
+                break;
+            }
+            var held = new Dictionary<string, double>(values);
+            var changed = false;
+            foreach (var stage in planningCase.Network.Stages.Where(s => s.StartupCost > 0))
+            {
+                var names = Enumerable.Range(0, planningCase.PeriodCount).Select(t => relaxed.Units[(stage.Id, t)].Name()).ToArray();
+                var units = names.Select(name => (int)held[name]).ToArray();
+                var gapPeriods = (int)Math.Round(gapHours / planningCase.PeriodHours);
+                if (FillShortDips(units, gapPeriods, planningCase.AvailableUnits[stage.Id]))
+                {
+                    changed = true;
+                    for (var t = 0; t < units.Length; t++)
+                    {
+                        held[names[t]] = units[t];
+                    }
+                }
+            }
+            if (!changed)
+            {
+                continue;
+            }
+            var candidate = SolveFixed(planningCase, held, options, remaining, []);
+            if (candidate is null || candidate.Objective >= plan.Objective - Tolerance)
+            {
+                candidate?.Dispose();
+                continue;
+            }
+            plan.Dispose();
+            (plan, values) = (candidate, held);
+        }
+        return (plan, values);
+    }
+
+    // Dips tried, in hours: short ones first, each on top of the last one kept.
+    private static readonly double[] HoldGapHours = [3, 8, 24];
+
+    /// <summary>Raises the count through every dip of at most <paramref name="maxGapPeriods"/> periods between two
+    /// periods with at least k units, for each k, where k units are available throughout. True when anything changed.</summary>
+    internal static bool FillShortDips(int[] units, int maxGapPeriods, int[] available)
+    {
+        var changed = false;
+        var most = units.Length == 0 ? 0 : units.Max();
+        for (var k = 1; k <= most; k++)
+        {
+            var lastAtLeastK = -1;
+            for (var t = 0; t < units.Length; t++)
+            {
+                if (units[t] < k)
+                {
+                    continue;
+                }
+                var gap = t - lastAtLeastK - 1;
+                if (lastAtLeastK >= 0 && gap > 0 && gap <= maxGapPeriods &&
+                    Enumerable.Range(lastAtLeastK + 1, gap).All(g => available[g] >= k))
+                {
+                    for (var g = lastAtLeastK + 1; g < t; g++)
+                    {
+                        units[g] = k;
+                    }
+                    changed = true;
+                }
+                lastAtLeastK = t;
+            }
+        }
+        return changed;
     }
 
     /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
