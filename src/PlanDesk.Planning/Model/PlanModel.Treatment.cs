@@ -35,6 +35,11 @@ internal sealed partial class PlanModel
         terms.Add((variable, kWhPerUnit));
     }
 
+    /// <summary>True for the name of a treatment-level decision y[p,d,m].</summary>
+    public static bool IsLevelDecision(string variableName) => variableName.StartsWith(LevelFamily + "[", StringComparison.Ordinal);
+
+    private const string LevelFamily = "level";
+
     /// <summary>Exactly one treatment level per plant and local day, among the levels the permit allows.</summary>
     private void AddTreatmentLevels()
     {
@@ -47,7 +52,7 @@ internal sealed partial class PlanModel
                 var oneLevel = EqualRow(1, Name("one-level", plant.Id, DayLabel(day.Index)));
                 foreach (var level in allowed)
                 {
-                    var on = IntVar(0, 1, Name("level", plant.Id, DayLabel(day.Index), level.Id), day.Index);
+                    var on = IntVar(0, 1, Name(LevelFamily, plant.Id, DayLabel(day.Index), level.Id), day.Index);
                     LevelOn[(plant.Id, day.Index, level.Id)] = on;
                     oneLevel.Add(on, 1);
                 }

@@ -13,10 +13,10 @@ internal enum IntegerMode
     Fixed,
 }
 
-/// <summary>How the integer decisions of each local day enter a model; fixed ones take their value by variable name.</summary>
-internal sealed record IntegerRule(Func<int, IntegerMode> ModeOfDay, IReadOnlyDictionary<string, double>? FixedValues = null)
+/// <summary>How each integer decision (by its local day and variable name) enters a model; fixed ones take their value by name.</summary>
+internal sealed record IntegerRule(Func<int, string, IntegerMode> ModeOf, IReadOnlyDictionary<string, double>? FixedValues = null)
 {
-    public static IntegerRule Everywhere(IntegerMode mode, IReadOnlyDictionary<string, double>? fixedValues = null) => new(_ => mode, fixedValues);
+    public static IntegerRule Everywhere(IntegerMode mode, IReadOnlyDictionary<string, double>? fixedValues = null) => new((_, _) => mode, fixedValues);
 }
 
 /// <summary>
@@ -94,7 +94,7 @@ internal sealed partial class PlanModel
     {
         Variable variable;
         var fixedIntegers = integerRule.FixedValues;
-        switch (integerRule.ModeOfDay(day))
+        switch (integerRule.ModeOf(day, name))
         {
             case IntegerMode.Integer:
                 variable = Solver.MakeIntVar(lowerBound, upperBound, name);

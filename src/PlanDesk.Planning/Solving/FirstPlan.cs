@@ -35,7 +35,7 @@ internal static class FirstPlan
             return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds - clock.Elapsed.TotalSeconds, notes);
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
-        var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
+        var levelsOnly = rounded.Where(pair => PlanModel.IsLevelDecision(pair.Key)).ToDictionary();
         return SolveFixed(planningCase, levelsOnly, options, timeLimitSeconds, notes);
     }
 

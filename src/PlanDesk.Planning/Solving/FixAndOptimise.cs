@@ -5,9 +5,10 @@ using PlanDesk.Planning.Model;
 namespace PlanDesk.Planning.Solving;
 
 /// <summary>
-/// Fix-and-optimise over local days: starting from a complete plan (the first plan), the full-horizon model is
-/// solved with one day's on/off decisions free and every other day's fixed to the plan's; a better solution
-/// becomes the plan, and the next day is freed. Every window has the whole horizon's constraints (tanks, monthly
+/// Fix-and-optimise: starting from a complete plan (the first plan), the full-horizon model is solved with some
+/// decisions free and the rest fixed to the plan's; a better solution becomes the plan, and the next window is
+/// freed. The windows are every day's treatment levels at once (units and pumps fixed: levels are few, and a
+/// monthly cap ties them across days), then each local day's on/off decisions in turn. Every window has the whole horizon's constraints (tanks, monthly
 /// caps, end volumes, the demand-charge peak) and every accepted window is a complete plan no worse than the one
 /// before, so a window that finds nothing in time (HiGHS then returns no solution at all) loses nothing. Passes
 /// over the days repeat while one improves and time is left. See docs/formulation.md, "Scaling".
@@ -23,23 +24,23 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
     /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
     public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
     {
-        var days = planningCase.Horizon.DayCount;
+        var windowRules = Windows();
         SolvedModel? best = null;
-        var improvedDays = 0;
+        var improvedWindows = 0;
         var windows = 0;
         for (var pass = 0; pass < MaximumPasses; pass++)
         {
             var improvedInPass = false;
-            for (var day = 0; day < days; day++)
+            for (var window = 0; window < windowRules.Count; window++)
             {
                 cancellation.ThrowIfCancellationRequested();
-                var seconds = remainingSeconds() / (days - day);
+                var seconds = remainingSeconds() / (windowRules.Count - window);
                 if (seconds < MinimumWindowSeconds)
                 {
                     break;
                 }
                 windows++;
-                var solved = SolveWindow(day, values, seconds);
+                var solved = SolveWindow(windowRules[window], values, seconds);
                 if (solved is null || solved.Objective >= Objective(best) - RelativeImprovement * Math.Max(1, Math.Abs(Objective(best))))
                 {
                     solved?.Dispose();
@@ -48,24 +49,40 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
                 best?.Dispose();
                 best = solved;
                 values = solved.Model.IntegerValues();
-                improvedDays++;
+                improvedWindows++;
                 improvedInPass = true;
             }
-            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days)
+            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * windowRules.Count)
             {
                 break;
             }
         }
-        notes.Add($"fix-and-optimise over days: {improvedDays} of {windows} day windows improved the plan");
+        notes.Add($"fix-and-optimise: {improvedWindows} of {windows} windows (the levels of every day, then each day) improved the plan");
         return best;
 
         double Objective(SolvedModel? plan) => plan?.Objective ?? startObjective;
     }
 
-    private SolvedModel? SolveWindow(int day, Dictionary<string, double> values, double seconds)
+    // Which decisions each window frees: every day's treatment levels, then each local day's decisions.
+    private List<Func<int, string, IntegerMode>> Windows()
+    {
+        var windows = new List<Func<int, string, IntegerMode>>();
+        if (planningCase.Network.Plants.Any(p => p.Levels.Count > 1))
+        {
+            windows.Add((_, name) => PlanModel.IsLevelDecision(name) ? IntegerMode.Integer : IntegerMode.Fixed);
+        }
+        for (var day = 0; day < planningCase.Horizon.DayCount; day++)
+        {
+            var freeDay = day;
+            windows.Add((d, _) => d == freeDay ? IntegerMode.Integer : IntegerMode.Fixed);
+        }
+        return windows;
+    }
+
+    private SolvedModel? SolveWindow(Func<int, string, IntegerMode> window, Dictionary<string, double> values, double seconds)
     {
         var solver = SolverBackend.CreateMip(backend)!;
-        var rule = new IntegerRule(d => d == day ? IntegerMode.Integer : IntegerMode.Fixed, values);
+        var rule = new IntegerRule(window, values);
         var model = PlanModel.Build(solver, planningCase, rule);
         var status = solver.Solve(SolverBackend.ConfigureMip(solver, backend, options, seconds, notes));
         if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
