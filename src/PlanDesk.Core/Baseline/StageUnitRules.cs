@@ -36,8 +36,13 @@ internal static class StageUnitRules
         var runFeedM3 = length * stage.UnitMinFlowM3PerHour * state.Case.PeriodHours;
         if (length > 1 && runFeedM3 > 0)
         {
-            var startable = Math.Min(productRoomM3 / stage.RecoveryFraction, feedStockM3) / runFeedM3;
-            most = Math.Min(most, running + (int)Math.Floor(Math.Max(0, startable)));
+            // Compared in doubles: with no room or stock given the allowance is infinite, and adding it as an int
+            // to the running units would overflow and stop every unit once its minimum run is over.
+            var startable = Math.Floor(Math.Max(0, Math.Min(productRoomM3 / stage.RecoveryFraction, feedStockM3) / runFeedM3));
+            if (startable < most - running)
+            {
+                most = running + (int)startable;
+            }
         }
         return (fewest, Math.Max(most, fewest), cut);
     }
