@@ -6,8 +6,7 @@ namespace PlanDesk.Core.Baseline;
 /// What an operator expects each stage to be asked for, hour by hour, from the demand forecast alone (the
 /// figures on the morning sheet): each customer's forecast demand, or its daily volume spread evenly over its
 /// allowed hours, passed back through its pipelines and tanks to the stages, with no refilling and no tank
-/// levels. The rules use it to keep units on across short dips and to start the day's units in one go; it
-/// never moves water itself.
+/// levels. The unit rules use it to keep units on across short dips; it never moves water itself.
 /// </summary>
 internal sealed class ExpectedDraw
 {
@@ -15,13 +14,11 @@ internal sealed class ExpectedDraw
     public const double HoldHours = 4;
 
     private readonly Dictionary<StageId, int[]> _units;
-    private readonly Dictionary<StageId, int[]> _dayUnits;
     private readonly Dictionary<StageId, int> _holdPeriods;
 
-    private ExpectedDraw(Dictionary<StageId, int[]> units, Dictionary<StageId, int[]> dayUnits, Dictionary<StageId, int> holdPeriods)
+    private ExpectedDraw(Dictionary<StageId, int[]> units, Dictionary<StageId, int> holdPeriods)
     {
         _units = units;
-        _dayUnits = dayUnits;
         _holdPeriods = holdPeriods;
     }
 
@@ -39,18 +36,16 @@ internal sealed class ExpectedDraw
             }
         }
         var units = network.Stages.ToDictionary(s => s.Id, s => feed[s.Id].Select((m3, t) => UnitsFor(planningCase, s, t, m3 / hours)).ToArray());
-        var dayUnits = network.Stages.ToDictionary(s => s.Id, s => planningCase.Horizon.Days
-            .SelectMany(d => Enumerable.Repeat(DayUnits(planningCase, s, d, feed[s.Id]), d.PeriodCount)).ToArray());
         var hold = network.Stages.ToDictionary(s => s.Id,
             s => Math.Max(Checking.StageChecks.MinimumRunPeriods(s, hours), (int)Math.Ceiling(HoldHours / hours - 1e-9)));
-        return new ExpectedDraw(units, dayUnits, hold);
+        return new ExpectedDraw(units, hold);
     }
 
     /// <summary>
     /// Units the operator keeps on in period <paramref name="t"/> when <paramref name="running"/> ran before:
     /// a running unit stays on while the forecast needs it again within the hold (its minimum run or
-    /// <see cref="HoldHours"/>, the longer); and when the stage starts units at all, it starts the day's units.
-    /// Soft: it yields to water, room and availability.
+    /// <see cref="HoldHours"/>, the longer), rather than being stopped and started again. Soft: it yields to
+    /// water, room and availability.
     /// </summary>
     public int SteadyUnits(Stage stage, int t, int running)
     {
@@ -64,18 +59,9 @@ internal sealed class ExpectedDraw
         return Math.Min(running, neededSoon);
     }
 
-    /// <summary>Units that carry the stage's forecast feed of its day running at their most flow all day.</summary>
-    public int DayUnits(Stage stage, int t) => _dayUnits[stage.Id][t];
-
     private static int UnitsFor(PlanningCase planningCase, Stage stage, int t, double feedM3PerHour) =>
         stage.UnitMaxFlowM3PerHour <= 0 ? 0
             : Math.Min(planningCase.AvailableUnits[stage.Id][t], (int)Math.Ceiling(feedM3PerHour / stage.UnitMaxFlowM3PerHour - 1e-9));
-
-    private static int DayUnits(PlanningCase planningCase, Stage stage, PlanDay day, double[] feedM3)
-    {
-        var dayFeedM3 = day.PeriodIndices.Sum(t => feedM3[t]);
-        return UnitsFor(planningCase, stage, day.FirstPeriod, dayFeedM3 / (day.PeriodCount * planningCase.PeriodHours));
-    }
 
     // One period of the forecast: customers' forecast draw to their pipelines, then each tank, downstream first,
     // asks its stages and then its incoming pipelines for what is drawn from it (no refilling).

@@ -5,10 +5,13 @@ using PlanDesk.Core.Plans;
 namespace PlanDesk.Core.Baseline;
 
 /// <summary>
-/// What operators do without a planner, simulated period by period (no look-ahead, no shifting to cheap
-/// hours): the standard treatment level; each stage makes what its customers take in the same period,
-/// keeping tanks near their start level; pumps run on demand; the engine burns the gas as it comes;
-/// the rest goes to the outfall; short water is rationed by contract priority. Costed by
+/// What a careful operator does without a planner, simulated period by period (no optimisation, no prices,
+/// no shifting to cheap hours): the standard treatment level; each stage makes what its customers take in the
+/// same period, keeping tanks near their start level, and keeps running units on across short dips in the
+/// demand forecast rather than stopping and restarting them; pumps run on demand; the engine burns the gas as
+/// it comes but draws on the holder to keep import from setting a new monthly peak; the rest goes to the
+/// outfall; short water is rationed by contract priority. A yardstick that chased every hour would overstate
+/// every plan's saving. The rules are listed with their reasons in docs/checker.md. Costed by
 /// <see cref="PlanCosting"/> like any plan, with every problem named. The method is "rules".
 /// </summary>
 public static class RuleBasedBaseline
