@@ -5,9 +5,10 @@ namespace PlanDesk.Core.Baseline;
 /// <summary>The decisions the baseline simulation has taken so far, per element and period.</summary>
 internal sealed class BaselineState
 {
-    public BaselineState(PlanningCase planningCase)
+    public BaselineState(PlanningCase planningCase, TankOrder order)
     {
         Case = planningCase;
+        Expected = ExpectedDraw.Of(planningCase, order);
         var periods = planningCase.PeriodCount;
         var network = planningCase.Network;
         Treated = network.Plants.ToDictionary(p => p.Id, _ => new double[periods]);
@@ -23,6 +24,8 @@ internal sealed class BaselineState
     }
 
     public PlanningCase Case { get; }
+    /// <summary>The stages' forecast draw, which the unit rules look ahead at.</summary>
+    public ExpectedDraw Expected { get; }
     public Dictionary<PlantId, double[]> Treated { get; }
     public Dictionary<PlantId, double[]> Bypass { get; }
     public Dictionary<PlantId, double[]> SecondaryToOutfall { get; }

@@ -29,7 +29,7 @@ internal sealed class PeriodRequests
         foreach (var customer in network.Customers)
         {
             requests.Customer[customer.Id] = CustomerWants(state, customer, t);
-            SplitOverPipelines(state, order, customer, requests, t);
+            SplitOverPipelines(state.Case, order, customer, requests);
         }
         foreach (var tank in order.UpstreamFirst.Reverse())
         {
@@ -87,14 +87,16 @@ internal sealed class PeriodRequests
                 ? BlendValue(network, l, blend.Parameter) ?? blend.Max
                 : -network.Class(network.Tank(l.From).Class).Rank);
 
-    private static void SplitOverPipelines(BaselineState state, TankOrder order, Customer customer, PeriodRequests requests, int t)
+    /// <summary>Splits what a customer is asked to receive (<see cref="Customer"/>) over its pipelines, in the order the
+    /// operator uses them, adding each pipeline's part to its source tank's outflow.</summary>
+    public static void SplitOverPipelines(PlanningCase planningCase, TankOrder order, Customer customer, PeriodRequests requests)
     {
-        var network = state.Case.Network;
+        var network = planningCase.Network;
         var remaining = requests.Customer[customer.Id];
         var blendSlack = 0.0;
         foreach (var pipeline in CustomerPipelines(network, order, customer))
         {
-            var most = PipelineMostM3(pipeline, state.Case.PeriodHours);
+            var most = PipelineMostM3(pipeline, planningCase.PeriodHours);
             if (customer.Blend is { } blend && BlendValue(network, pipeline, blend.Parameter) is { } value && value > blend.Max)
             {
                 most = Math.Min(most, blendSlack / (value - blend.Max));

@@ -5,10 +5,13 @@ using PlanDesk.Core.Plans;
 namespace PlanDesk.Core.Baseline;
 
 /// <summary>
-/// What operators do without a planner, simulated period by period (no look-ahead, no shifting to cheap
-/// hours): the standard treatment level; each stage makes what its customers take in the same period,
-/// keeping tanks near their start level; pumps run on demand; the engine burns the gas as it comes;
-/// the rest goes to the outfall; short water is rationed by contract priority. Costed by
+/// What a careful operator does without a planner, simulated period by period (no optimisation, no prices,
+/// no shifting to cheap hours): the standard treatment level; each stage makes what its customers take in the
+/// same period, keeping tanks near their start level, and keeps running units on across short dips in the
+/// demand forecast rather than stopping and restarting them; pumps run on demand; the engine burns the gas as
+/// it comes but draws on the holder to keep import from setting a new monthly peak; the rest goes to the
+/// outfall; short water is rationed by contract priority. A yardstick that chased every hour would overstate
+/// every plan's saving. The rules are listed with their reasons in docs/checker.md. Costed by
 /// <see cref="PlanCosting"/> like any plan, with every problem named. The method is "rules".
 /// </summary>
 public static class RuleBasedBaseline
@@ -18,22 +21,24 @@ public static class RuleBasedBaseline
     public static Plan Build(PlanningCase planningCase)
     {
         var network = planningCase.Network;
-        var state = new BaselineState(planningCase);
         var order = TankOrder.Of(network);
+        var state = new BaselineState(planningCase, order);
         for (var t = 0; t < planningCase.PeriodCount; t++)
         {
             BaselineFlows.Run(state, order, t);
         }
-        var gas = network.Plants.ToDictionary(p => p.Id, p => BaselineEnergy.Gas(planningCase, p));
+        // The engine's first draft burns nothing: the load does not depend on it, and the peak rule needs the load.
+        var noGas = network.Plants.ToDictionary(p => p.Id, p => GasSchedule.None(planningCase.PeriodCount));
 
         // Levels depend on the day's nutrient-bearing outfall volume, the grid on the load: cost the flows
         // first with the standard levels and no grid, then settle levels, then import and export.
         var usual = network.Plants.ToDictionary(p => p.Id, p => Enumerable.Repeat(p.StandardLevel, planningCase.Horizon.Days.Count).ToArray());
         var noGrid = network.Plants.ToDictionary(p => p.Id, _ => (new double[planningCase.PeriodCount], new double[planningCase.PeriodCount]));
-        var draft = PlanCosting.Compute(planningCase, Assemble(state, gas, usual, noGrid, new CostBreakdown(), []));
+        var draft = PlanCosting.Compute(planningCase, Assemble(state, noGas, usual, noGrid, new CostBreakdown(), []));
         var levels = network.Plants.ToDictionary(p => p.Id,
             p => BaselineLevels.Choose(planningCase, p, draft.Plants[p.Id].NitrogenBearingM3, state.Bypass[p.Id]));
-        var loaded = PlanCosting.Compute(planningCase, Assemble(state, gas, levels, noGrid, new CostBreakdown(), []));
+        var loaded = PlanCosting.Compute(planningCase, Assemble(state, noGas, levels, noGrid, new CostBreakdown(), []));
+        var gas = network.Plants.ToDictionary(p => p.Id, p => BaselineEnergy.Gas(planningCase, p, loaded.Plants[p.Id].LoadKWh));
         var grid = network.Plants.ToDictionary(p => p.Id, p => BaselineEnergy.Grid(loaded.Plants[p.Id].LoadKWh, gas[p.Id].EngineKWh));
 
         var unpriced = Assemble(state, gas, levels, grid, new CostBreakdown(), []);

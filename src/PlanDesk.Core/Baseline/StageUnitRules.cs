@@ -36,8 +36,13 @@ internal static class StageUnitRules
         var runFeedM3 = length * stage.UnitMinFlowM3PerHour * state.Case.PeriodHours;
         if (length > 1 && runFeedM3 > 0)
         {
-            var startable = Math.Min(productRoomM3 / stage.RecoveryFraction, feedStockM3) / runFeedM3;
-            most = Math.Min(most, running + (int)Math.Floor(Math.Max(0, startable)));
+            // Compared in doubles: with no room or stock given the allowance is infinite, and adding it as an int
+            // to the running units would overflow and stop every unit once its minimum run is over.
+            var startable = Math.Floor(Math.Max(0, Math.Min(productRoomM3 / stage.RecoveryFraction, feedStockM3) / runFeedM3));
+            if (startable < most - running)
+            {
+                most = running + (int)startable;
+            }
         }
         return (fewest, Math.Max(most, fewest), cut);
     }
@@ -58,7 +63,14 @@ internal static class StageUnitRules
         var (fewest, most, cut) = Allowed(state, order, stage, t, productRoomM3, feedStockM3);
         var hours = state.Case.PeriodHours;
         var least = stage.UnitMinFlowM3PerHour * hours;
-        var choice = FlowChoices.Nearest(targetM3, lowM3, highM3, fewest, most, least, stage.UnitMaxFlowM3PerHour * hours);
+        var running = Math.Min(state.UnitsBefore(stage, t), most);
+        var steady = Math.Clamp(state.Expected.SteadyUnits(stage, t, running), fewest, most);
+        var choice = FlowChoices.Nearest(targetM3, lowM3, highM3, steady, most, least, stage.UnitMaxFlowM3PerHour * hours);
+        if (steady > fewest && choice.FlowM3 > Math.Max(0, highM3) + 1e-9)
+        {
+            // Units held on across a dip yield to room and water without a problem: they are past their minimum run.
+            choice = FlowChoices.Nearest(targetM3, lowM3, highM3, fewest, most, least, stage.UnitMaxFlowM3PerHour * hours);
+        }
         if (choice.FlowM3 > Math.Max(0, highM3) + 1e-9)
         {
             choice = FlowChoices.Nearest(targetM3, lowM3, highM3, 0, most, least, stage.UnitMaxFlowM3PerHour * hours);

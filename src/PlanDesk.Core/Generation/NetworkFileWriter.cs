@@ -63,6 +63,7 @@ public static class NetworkFileWriter
             json.WriteNumber("permitExcessPerKg", network.Penalties.PermitExcessPerKg);
             json.WriteNumber("outfallExcessPerM3", network.Penalties.OutfallExcessPerM3);
             json.WriteNumber("tankEndDeficitPerM3", network.Penalties.TankEndDeficitPerM3);
+            json.WriteNumber("tankLimitPerM3", network.Penalties.TankLimitPerM3);
             json.WriteEndObject();
             json.WriteNumber("carbonPricePerTonne", network.CarbonPricePerTonne);
             Array("qualityClasses", network.Classes, QualityClass);

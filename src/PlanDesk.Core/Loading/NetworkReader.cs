@@ -123,6 +123,7 @@ internal static class NetworkReader
             PermitExcessPerKg = penalties.NumberOr("permitExcessPerKg", defaults.PermitExcessPerKg),
             OutfallExcessPerM3 = penalties.NumberOr("outfallExcessPerM3", defaults.OutfallExcessPerM3),
             TankEndDeficitPerM3 = penalties.NumberOr("tankEndDeficitPerM3", defaults.TankEndDeficitPerM3),
+            TankLimitPerM3 = penalties.NumberOr("tankLimitPerM3", defaults.TankLimitPerM3),
         };
     }
 
