@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using Google.OrTools.LinearSolver;
 using PlanDesk.Core.Model;
 using PlanDesk.Planning.Model;
@@ -24,25 +25,40 @@ internal static class FirstPlan
     // Rounds of switching plant-days over a daily cap to the next tighter level.
     private const int LevelRepairRounds = 3;
 
-    public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes)
+    // A fixed-integer LP is not started with less time than this left: it would only hit its limit.
+    private const double MinimumLpSeconds = 0.2;
+
+    public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes) =>
+        Build(planningCase, Round(relaxed), options, timeLimitSeconds, notes);
+
+    /// <summary>The first plan from integer values already rounded from a relaxation (<see cref="Round"/>), so the
+    /// relaxation's solver can be disposed before these LPs are built.</summary>
+    public static SolvedModel? Build(PlanningCase planningCase, Dictionary<string, double> rounded, SolveOptions options, double timeLimitSeconds,
+        List<string> notes)
     {
-        var rounded = Round(relaxed);
-        var plan = SolveFixed(planningCase, rounded, options, timeLimitSeconds, notes);
+        // Every LP below shares the one time limit: the caller counts on the whole first plan ending within it.
+        var clock = Stopwatch.StartNew();
+        double Left() => timeLimitSeconds - clock.Elapsed.TotalSeconds;
+        var plan = SolveFixed(planningCase, rounded, options, Left(), notes);
         if (plan is not null)
         {
-            return TightenLevelsOverCaps(planningCase, plan, rounded, options, timeLimitSeconds, notes);
+            return TightenLevelsOverCaps(planningCase, plan, rounded, options, Left, notes);
+        }
+        if (Left() < MinimumLpSeconds)
+        {
+            return null;
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
         var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
-        return SolveFixed(planningCase, levelsOnly, options, timeLimitSeconds, notes);
+        return SolveFixed(planningCase, levelsOnly, options, Left(), notes);
     }
 
     /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
     /// move to the next tighter level while that makes the plan cheaper.</summary>
     private static SolvedModel TightenLevelsOverCaps(PlanningCase planningCase, SolvedModel plan, Dictionary<string, double> values,
-        SolveOptions options, double timeLimitSeconds, List<string> notes)
+        SolveOptions options, Func<double> secondsLeft, List<string> notes)
     {
-        for (var round = 0; round < LevelRepairRounds; round++)
+        for (var round = 0; round < LevelRepairRounds && secondsLeft() >= MinimumLpSeconds; round++)
         {
             var tighter = new Dictionary<string, double>(values);
             var changed = false;
@@ -68,7 +84,7 @@ internal static class FirstPlan
             {
                 break;
             }
-            var candidate = SolveFixed(planningCase, tighter, options, timeLimitSeconds, notes);
+            var candidate = SolveFixed(planningCase, tighter, options, secondsLeft(), notes);
             if (candidate is null || candidate.Objective >= plan.Objective - Tolerance)
             {
                 candidate?.Dispose();
