@@ -13,6 +13,25 @@ internal static class BaselineStart
 {
     private const double Tolerance = 1e-9;
 
+    /// <summary>The baseline's levels, units and pumps fixed and the flows re-solved as an LP: never dearer than the
+    /// baseline when its flows are feasible for the model. Null when the LP ends without a plan (out of time, or the
+    /// baseline's decisions leave the model no way).</summary>
+    public static KeptPlan? Solve(PlanningCase planningCase, Plan baseline, SolveOptions options, double timeLimitSeconds, List<string> notes)
+    {
+        var values = IntegerValues(planningCase, baseline);
+        using var solved = FirstPlan.SolveFixed(planningCase, values, options, timeLimitSeconds, notes);
+        if (solved is null)
+        {
+            return null;
+        }
+        var unknown = values.Keys.Except(solved.Model.IntegerVariables.Select(v => v.Name())).ToList();
+        if (unknown.Count > 0)
+        {
+            notes.Add($"{unknown.Count} of the baseline's decisions name no variable of the model (e.g. {unknown[0]}); they were left out");
+        }
+        return KeptPlan.Read(solved, KeptPlan.BaselineDecisions);
+    }
+
     /// <summary>Integer values by name for <paramref name="baseline"/>'s levels, units and pumps. Only variables the
     /// model builds are named: a level the model does not allow (it breaks a concentration limit) is replaced by the
     /// level the model plans instead.</summary>

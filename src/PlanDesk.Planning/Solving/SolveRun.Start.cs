@@ -1,5 +1,6 @@
 using Google.OrTools.LinearSolver;
 using PlanDesk.Core.Baseline;
+using PlanDesk.Core.Plans;
 using PlanDesk.Planning.Model;
 
 namespace PlanDesk.Planning.Solving;
@@ -24,14 +25,13 @@ internal sealed partial class SolveRun
     {
         Report("rule-based baseline");
         var baseline = RuleBasedBaseline.Build(planningCase);
-        var values = BaselineStart.IntegerValues(planningCase, baseline);
         // The baseline's cost comes from PlanCosting, the checker's accounting, which agrees with the objective.
-        var start = new KeptPlan(KeptPlan.BaselineFlows, baseline.Costs.Total, values, baseline);
+        var start = new KeptPlan(KeptPlan.BaselineFlows, baseline.Costs.Total, BaselineStart.IntegerValues(planningCase, baseline), baseline);
         incumbent = start.Objective;
         Report("first plan from the baseline's decisions");
         cancellation.ThrowIfCancellationRequested();
 
-        start = KeptPlan.Cheaper(start, BaselineDecisions(values))!;
+        start = KeptPlan.Cheaper(start, BaselineDecisions(baseline))!;
         incumbent = start.Objective;
         Report("relaxation and first plan");
         cancellation.ThrowIfCancellationRequested();
@@ -41,25 +41,18 @@ internal sealed partial class SolveRun
         return start;
     }
 
-    // The baseline's levels, units and pumps fixed, the flows re-solved as an LP: never dearer than the baseline
-    // when its flows are feasible for the model.
-    private KeptPlan? BaselineDecisions(Dictionary<string, double> values)
+    // The baseline's decisions with the flows re-solved (see BaselineStart.Solve).
+    private KeptPlan? BaselineDecisions(Plan baseline)
     {
         var started = clock.Elapsed.TotalSeconds;
-        using var solved = FirstPlan.SolveFixed(planningCase, values, options, Remaining() * BaselineLpTimeShare, notes);
-        if (solved is null)
+        var kept = BaselineStart.Solve(planningCase, baseline, options, Remaining() * BaselineLpTimeShare, notes);
+        if (kept is null)
         {
             notes.Add("the LP with the baseline's on/off decisions gave no plan (out of time, or the baseline's decisions leave the model no way)");
             return null;
         }
         baselineLpSeconds = clock.Elapsed.TotalSeconds - started;
-        NoteModel(solved.Model);
-        var unknown = values.Keys.Except(solved.Model.IntegerVariables.Select(v => v.Name())).ToList();
-        if (unknown.Count > 0)
-        {
-            notes.Add($"{unknown.Count} of the baseline's decisions name no variable of the model (e.g. {unknown[0]}); they were left out");
-        }
-        return KeptPlan.Read(solved, KeptPlan.BaselineDecisions);
+        return kept;
     }
 
     // The relaxation's optimum is a true lower bound (kept for HiGHS, whose own bound is not); its rounding is a
