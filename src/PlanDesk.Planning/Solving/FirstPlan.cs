@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Globalization;
 using Google.OrTools.LinearSolver;
 using PlanDesk.Core.Model;
 using PlanDesk.Planning.Model;
@@ -28,21 +29,22 @@ internal static class FirstPlan
     // A fixed-integer LP is not started with less time than this left: it would only hit its limit.
     private const double MinimumLpSeconds = 0.2;
 
-    public static SolvedModel? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes) =>
+    public static KeptPlan? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes) =>
         Build(planningCase, Round(relaxed), options, timeLimitSeconds, notes);
 
     /// <summary>The first plan from integer values already rounded from a relaxation (<see cref="Round"/>), so the
-    /// relaxation's solver can be disposed before these LPs are built.</summary>
-    public static SolvedModel? Build(PlanningCase planningCase, Dictionary<string, double> rounded, SolveOptions options, double timeLimitSeconds,
+    /// relaxation's solver can be disposed before these LPs are built. Each LP is read into a plan record and disposed
+    /// before the next is built.</summary>
+    public static KeptPlan? Build(PlanningCase planningCase, Dictionary<string, double> rounded, SolveOptions options, double timeLimitSeconds,
         List<string> notes)
     {
         // Every LP below shares the one time limit: the caller counts on the whole first plan ending within it.
         var clock = Stopwatch.StartNew();
         double Left() => timeLimitSeconds - clock.Elapsed.TotalSeconds;
-        var plan = SolveFixed(planningCase, rounded, options, Left(), notes);
+        var plan = SolveAndKeep(planningCase, rounded, options, Left(), notes);
         if (plan is not null)
         {
-            return TightenLevelsOverCaps(planningCase, plan, rounded, options, Left, notes);
+            return TightenLevelsOverCaps(planningCase, plan.Value, rounded, options, Left, notes);
         }
         if (Left() < MinimumLpSeconds)
         {
@@ -50,28 +52,27 @@ internal static class FirstPlan
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
         var levelsOnly = rounded.Where(pair => pair.Key.StartsWith("level[", StringComparison.Ordinal)).ToDictionary();
-        return SolveFixed(planningCase, levelsOnly, options, Left(), notes);
+        return SolveAndKeep(planningCase, levelsOnly, options, Left(), notes)?.Plan;
     }
 
     /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
     /// move to the next tighter level while that makes the plan cheaper.</summary>
-    private static SolvedModel TightenLevelsOverCaps(PlanningCase planningCase, SolvedModel plan, Dictionary<string, double> values,
-        SolveOptions options, Func<double> secondsLeft, List<string> notes)
+    private static KeptPlan TightenLevelsOverCaps(PlanningCase planningCase, (KeptPlan Plan, List<DailyCap> OverCaps) solved,
+        Dictionary<string, double> values, SolveOptions options, Func<double> secondsLeft, List<string> notes)
     {
+        var (plan, overCaps) = solved;
         for (var round = 0; round < LevelRepairRounds && secondsLeft() >= MinimumLpSeconds; round++)
         {
             var tighter = new Dictionary<string, double>(values);
             var changed = false;
-            foreach (var ((plantId, nutrientKey, day), excess) in plan.Model.DailyLoadExcess)
+            foreach (var (plantId, nutrientKey, day) in overCaps)
             {
-                if (excess.SolutionValue() <= Tolerance)
-                {
-                    continue;
-                }
                 var plant = planningCase.Network.Plant(plantId);
                 var nutrient = PermitNutrient.Of(plant).First(n => n.Key == nutrientKey);
-                var levels = plan.Model.AllowedLevels[plantId].OrderBy(nutrient.EffluentMgPerL).ToList();
-                var name = (TreatmentLevel level) => plan.Model.LevelOn[(plantId, day, level.Id)].Name();
+                var date = planningCase.Horizon.Days[day].Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+                var name = (TreatmentLevel level) => PlanModel.Name("level", plantId, date, level.Id);
+                // The levels the model builds are those the values name.
+                var levels = plant.Levels.Where(l => tighter.ContainsKey(name(l))).OrderBy(nutrient.EffluentMgPerL).ToList();
                 var current = levels.FindIndex(l => tighter[name(l)] > 0.5);
                 if (current > 0)
                 {
@@ -84,16 +85,31 @@ internal static class FirstPlan
             {
                 break;
             }
-            var candidate = SolveFixed(planningCase, tighter, options, secondsLeft(), notes);
-            if (candidate is null || candidate.Objective >= plan.Objective - Tolerance)
+            var candidate = SolveAndKeep(planningCase, tighter, options, secondsLeft(), notes);
+            if (candidate is null || candidate.Value.Plan.Objective >= plan.Objective - Tolerance)
             {
-                candidate?.Dispose();
                 break;
             }
-            plan.Dispose();
-            (plan, values) = (candidate, tighter);
+            (plan, overCaps, values) = (candidate.Value.Plan, candidate.Value.OverCaps, tighter);
         }
         return plan;
+    }
+
+    /// <summary>A plant-day over a daily load cap, by nutrient key.</summary>
+    private readonly record struct DailyCap(PlantId Plant, string Nutrient, int Day);
+
+    // Solves the fixed LP, reads its plan and the daily caps it exceeds, and disposes it.
+    private static (KeptPlan Plan, List<DailyCap> OverCaps)? SolveAndKeep(PlanningCase planningCase, Dictionary<string, double> values,
+        SolveOptions options, double timeLimitSeconds, List<string> notes)
+    {
+        using var solved = SolveFixed(planningCase, values, options, timeLimitSeconds, notes);
+        if (solved is null)
+        {
+            return null;
+        }
+        var overCaps = solved.Model.DailyLoadExcess.Where(pair => pair.Value.SolutionValue() > Tolerance)
+            .Select(pair => new DailyCap(pair.Key.Plant, pair.Key.Nutrient, pair.Key.Day)).ToList();
+        return (KeptPlan.Read(solved, KeptPlan.RoundedRelaxation), overCaps);
     }
 
     internal static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,

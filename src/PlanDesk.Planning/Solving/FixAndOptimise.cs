@@ -20,9 +20,13 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
     private const int MaximumPasses = 3;
 
     /// <summary>Improves a plan of objective <paramref name="startObjective"/> and integer values <paramref name="values"/>
-    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
-    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
+    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.
+    /// A window is not started with less than <paramref name="leastWindowSeconds"/> (at least a second): HiGHS does not
+    /// stop inside a root LP, so a window that cannot solve its LP in time overruns.</summary>
+    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation,
+        double leastWindowSeconds = MinimumWindowSeconds)
     {
+        leastWindowSeconds = Math.Max(leastWindowSeconds, MinimumWindowSeconds);
         var days = planningCase.Horizon.DayCount;
         SolvedModel? best = null;
         var improvedDays = 0;
@@ -34,7 +38,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
             {
                 cancellation.ThrowIfCancellationRequested();
                 var seconds = remainingSeconds() / (days - day);
-                if (seconds < MinimumWindowSeconds)
+                if (seconds < leastWindowSeconds)
                 {
                     break;
                 }
@@ -51,7 +55,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
                 improvedDays++;
                 improvedInPass = true;
             }
-            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * days)
+            if (!improvedInPass || remainingSeconds() < leastWindowSeconds * days)
             {
                 break;
             }

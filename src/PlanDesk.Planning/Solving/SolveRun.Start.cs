@@ -52,6 +52,7 @@ internal sealed partial class SolveRun
             return null;
         }
         baselineLpSeconds = clock.Elapsed.TotalSeconds - started;
+        MemoryRelease.AfterModel();
         return kept;
     }
 
@@ -77,8 +78,10 @@ internal sealed partial class SolveRun
             rounded = FirstPlan.Round(relaxed);
         }
         Report("first plan from the relaxation");
-        using var first = FirstPlan.Build(planningCase, rounded, options, Remaining() * FirstPlanTimeShare, notes);
-        return first is null ? null : KeptPlan.Read(first, KeptPlan.RoundedRelaxation);
+        MemoryRelease.AfterModel();
+        var first = FirstPlan.Build(planningCase, rounded, options, Remaining() * FirstPlanTimeShare, notes);
+        MemoryRelease.AfterModel();
+        return first;
     }
 
     // The model's size and its notes about the data, taken from the first model built (every model has the same shape).

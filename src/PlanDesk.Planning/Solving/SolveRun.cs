@@ -51,13 +51,15 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         if (WholeMilpFits(backend))
         {
             whole = SolveWholeMilp(backend, start);
+            MemoryRelease.AfterModel();
         }
         KeptPlan? dayByDay = null;
-        if (whole.Plan is null && UsesFixAndOptimise(backend) && relaxationSeconds is not null && !ProvenWithinGap(start.Objective))
+        if (whole.Plan is null && UsesFixAndOptimise(backend) && !ProvenWithinGap(start.Objective) && FixAndOptimiseFits())
         {
             // Over several days, the time the whole MILP leaves goes to improving the start plan day by day
             // (see docs/formulation.md, "Scaling").
             dayByDay = ImproveDayByDay(backend, start);
+            MemoryRelease.AfterModel();
         }
         return Finish(backend, whole, dayByDay, start);
     }
@@ -83,6 +85,26 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         return true;
     }
 
+    // A day window re-solves the whole horizon's LP with one day's decisions free: its root LP takes about what the
+    // LP with the baseline's decisions took, and no window is started without that time (twice over).
+    private bool FixAndOptimiseFits()
+    {
+        if (relaxationSeconds is null || baselineLpSeconds is not { } lpSeconds)
+        {
+            notes.Add("fix-and-optimise over days was not started: the LPs before it did not finish in time");
+            return false;
+        }
+        if (SearchSecondsLeft() / planningCase.Horizon.DayCount < WindowLeastSeconds(lpSeconds))
+        {
+            notes.Add($"fix-and-optimise over days was not started: a day window needs about {WindowLeastSeconds(lpSeconds):0.#} s " +
+                      $"and {Math.Max(0, SearchSecondsLeft()):0.#} s were left for {planningCase.Horizon.DayCount} days");
+            return false;
+        }
+        return true;
+    }
+
+    private static double WindowLeastSeconds(double fixedLpSeconds) => RootLpFactor * fixedLpSeconds;
+
     private WholeMilp SolveWholeMilp(string backend, KeptPlan start)
     {
         Report("building the model");
@@ -105,8 +127,9 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     {
         var dayByDayNotes = new List<string>();
         var values = new Dictionary<string, double>(start.IntegerValues);
-        var task = Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(start.Objective, values, SearchSecondsLeft, cancellation),
-            CancellationToken.None);
+        var leastWindowSeconds = WindowLeastSeconds(baselineLpSeconds ?? 0);
+        var task = Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes)
+            .Improve(start.Objective, values, SearchSecondsLeft, cancellation, leastWindowSeconds), CancellationToken.None);
         using var solved = Await(task);
         notes.AddRange(dayByDayNotes);
         cancellation.ThrowIfCancellationRequested();
