@@ -207,10 +207,6 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
                 ? $"the whole MILP {milpOutcome}: this is {chosen.Source}"
                 : $"the whole MILP found no better plan in time than {chosen.Source}");
         }
-        if (chosen.Source == KeptPlan.BaselineFlows)
-        {
-            notes.Add("the plan is the rule-based baseline's: no plan from the model was cheaper in time");
-        }
 
         var status = whole.Status ?? Solver.ResultStatus.NOT_SOLVED;
         var bound = Bounds.Best(backend, status, whole.Plan?.Objective, whole.ReportedBound, relaxationBound, whole.GapPercent, chosen.Objective, notes);
