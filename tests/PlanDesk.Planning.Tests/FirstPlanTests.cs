@@ -60,11 +60,11 @@ public class FirstPlanTests
         var relaxed = Model.PlanModel.Build(lp, planningCase, Model.IntegerMode.Relaxed);
         Assert.Equal(Google.OrTools.LinearSolver.Solver.ResultStatus.OPTIMAL, lp.Solve());
 
-        using var first = FirstPlan.Build(planningCase, relaxed, new SolveOptions(), 10, []);
+        var first = FirstPlan.Build(planningCase, relaxed, new SolveOptions(), 10, []);
 
         Assert.NotNull(first);
         Assert.True(first.Objective >= 50.0 - 1e-6);
-        var units = first.Model.IntegerValues();
+        var units = first.IntegerValues;
         var running = Enumerable.Range(0, 24).Select(t => (int)units[$"units[filter,t{t}]"]).ToArray();
         // Every run lasts 4 hours or until the horizon ends (the model asks no more of a run cut by the horizon's end).
         Assert.All(Enumerable.Range(0, 24).Where(t => running[t] == 1 && (t == 0 || running[t - 1] == 0)),

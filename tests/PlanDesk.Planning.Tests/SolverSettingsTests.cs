@@ -77,7 +77,8 @@ public class SolverSettingsTests
 
         Planner.Solve(ShiftCase(), new SolveOptions { TimeLimitSeconds = 20 }, progress);
 
-        Assert.Equal(["building the model", "relaxation and first plan", "solving", "explaining (marginal water costs)"],
+        Assert.Equal(["rule-based baseline", "first plan from the baseline's decisions", "relaxation and first plan", "first plan from the relaxation",
+                "building the model", "solving", "explaining (marginal water costs)"],
             phases.Select(p => p.Phase).Distinct());
         Assert.All(phases, p => Assert.Equal(20, p.TimeLimitSeconds));
     }

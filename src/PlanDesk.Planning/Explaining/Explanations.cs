@@ -13,16 +13,18 @@ namespace PlanDesk.Planning.Explaining;
 /// </summary>
 internal static class Explanations
 {
-    public static Plan Add(PlanningCase planningCase, PlanModel solved, Plan plan, List<string> notes)
+    /// <param name="integers">The plan's integer decisions by variable name (<see cref="PlanModel.IntegerValues"/>).</param>
+    /// <param name="timeLimitSeconds">Time the fixed-decision LP may take; past it the plan has no marginal costs, with a note.</param>
+    public static Plan Add(PlanningCase planningCase, IReadOnlyDictionary<string, double> integers, Plan plan, double timeLimitSeconds, List<string> notes)
     {
-        var marginal = MarginalWaterCosts(planningCase, solved.IntegerValues(), plan.Solve.Objective, notes);
+        var marginal = MarginalWaterCosts(planningCase, integers, plan.Solve.Objective, timeLimitSeconds, notes);
         return plan with { MarginalWaterCosts = marginal, BindingLimits = BindingLimits.Find(planningCase, plan) };
     }
 
     private static List<MarginalWaterCost> MarginalWaterCosts(PlanningCase planningCase, IReadOnlyDictionary<string, double> integers,
-        double milpObjective, List<string> notes)
+        double milpObjective, double timeLimitSeconds, List<string> notes)
     {
-        using var lp = SolverBackend.CreateDualLp();
+        using var lp = SolverBackend.CreateDualLp(timeLimitSeconds);
         var model = PlanModel.Build(lp, planningCase, IntegerMode.Fixed, integers);
         var status = lp.Solve();
         if (status != Solver.ResultStatus.OPTIMAL)

@@ -21,9 +21,13 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
     private const int MaximumPasses = 3;
 
     /// <summary>Improves a plan of objective <paramref name="startObjective"/> and integer values <paramref name="values"/>
-    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.</summary>
-    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation)
+    /// until <paramref name="remainingSeconds"/> runs out; returns the best plan found, or null when no window improved it.
+    /// A window is not started with less than <paramref name="leastWindowSeconds"/> (at least a second): HiGHS does not
+    /// stop inside a root LP, so a window that cannot solve its LP in time overruns.</summary>
+    public SolvedModel? Improve(double startObjective, Dictionary<string, double> values, Func<double> remainingSeconds, CancellationToken cancellation,
+        double leastWindowSeconds = MinimumWindowSeconds)
     {
+        leastWindowSeconds = Math.Max(leastWindowSeconds, MinimumWindowSeconds);
         var windowRules = Windows();
         SolvedModel? best = null;
         var improvedWindows = 0;
@@ -35,7 +39,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
             {
                 cancellation.ThrowIfCancellationRequested();
                 var seconds = remainingSeconds() / (windowRules.Count - window);
-                if (seconds < MinimumWindowSeconds)
+                if (seconds < leastWindowSeconds)
                 {
                     break;
                 }
@@ -52,7 +56,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, string backend, 
                 improvedWindows++;
                 improvedInPass = true;
             }
-            if (!improvedInPass || remainingSeconds() < MinimumWindowSeconds * windowRules.Count)
+            if (!improvedInPass || remainingSeconds() < leastWindowSeconds * windowRules.Count)
             {
                 break;
             }

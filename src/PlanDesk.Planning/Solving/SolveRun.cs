@@ -9,27 +9,33 @@ using PlanDesk.Planning.Model;
 namespace PlanDesk.Planning.Solving;
 
 /// <summary>
-/// One solve, in stages: build the MILP; solve its LP relaxation (HiGHS's bound) and round it into a first plan;
-/// solve the whole MILP in the time left (SCIP starts from the first plan); over several days, when HiGHS's first
-/// try finds nothing, improve the first plan by fix-and-optimise over days; keep the best plan; explain it with a
-/// fixed-decision LP.
+/// One solve, in stages, each model disposed before the next is built: the rule-based baseline (a plan within
+/// seconds) and its on/off decisions with re-optimised flows; the LP relaxation (a true bound) and a plan rounded
+/// from it; the whole MILP in the time left (SCIP starts from the best of these); over several days, when HiGHS's
+/// first try finds nothing, fix-and-optimise over days from that plan; keep the cheapest plan; explain it with a
+/// fixed-decision LP. A step that has no time limit of its own is not started when it could not end in time.
 /// </summary>
-internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
+internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
 {
-    // Shares of the time left that the LP relaxation and the first plan's LP may use at most: generous, because
-    // without them there is no bound and no safety net, and they normally take a small part of it.
-    private const double RelaxationTimeShare = 0.5;
-    private const double FirstPlanTimeShare = 0.5;
     // HiGHS's first try at the asked gap, as a share of the time left; the second try's gap and least time.
     private const double HighsFirstTryShare = 0.65;
     private const double LooserGapPercent = 2.0;
     private const double MinimumSecondTrySeconds = 3.0;
+    // The whole MILP starts only when its first try has this many times what the relaxation took: its root LP is that
+    // LP again (with presolve and cuts), and HiGHS does not stop inside it on its time limit (overruns of 14-54 s measured).
+    private const double RootLpFactor = 2.0;
+    // Time kept back for the explanation LP (GLOP, fixed decisions), as a multiple of what the baseline's LP (HiGHS) took, and at
+    // least (measured at XL: explanation 9 s, the baseline's LP 19-54 s under load).
+    private const double ExplainLpFactor = 1.0;
+    private const double MinimumExplainSeconds = 1.0;
     private static readonly TimeSpan ProgressInterval = TimeSpan.FromMilliseconds(500);
 
     private readonly Stopwatch clock = Stopwatch.StartNew();
     private readonly List<string> notes = [];
     private double? incumbent;
     private double? relaxationBound;
+    private double? relaxationSeconds;
+    private (int Variables, int Integers, int Constraints)? modelSize;
 
     public Plan Execute()
     {
@@ -40,60 +46,100 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
                 $"unknown solver '{options.Solver}': choose one of {string.Join(", ", SolverBackend.Supported)}");
         }
 
-        Report("building the model");
-        var solver = SolverBackend.CreateMip(backend)!;
-        SolvedModel? firstPlan = null;
-        SolvedModel? dayByDay = null;
-        SolvedModel? whole = null;
-        try
+        var start = StartPlan();
+        cancellation.ThrowIfCancellationRequested();
+        var whole = new WholeMilp(null, null, double.NaN, options.GapPercent);
+        if (WholeMilpFits(backend))
         {
-            var model = PlanModel.Build(solver, planningCase, IntegerMode.Integer);
-            notes.AddRange(model.Notes);
-            Report("relaxation and first plan");
-            firstPlan = RelaxAndRound(backend);
-            incumbent = firstPlan?.Objective;
-            cancellation.ThrowIfCancellationRequested();
+            whole = SolveWholeMilp(backend, start);
+            MemoryRelease.AfterModel();
+        }
+        KeptPlan? dayByDay = null;
+        if (whole.Plan is null && UsesFixAndOptimise(backend) && !ProvenWithinGap(start.Objective) && FixAndOptimiseFits())
+        {
+            // Over several days, the time the whole MILP leaves goes to improving the start plan day by day
+            // (see docs/formulation.md, "Scaling").
+            dayByDay = ImproveDayByDay(backend, start);
+            MemoryRelease.AfterModel();
+        }
+        return Finish(backend, whole, dayByDay, start);
+    }
 
-            if (backend == SolverBackend.Scip && firstPlan is not null)
-            {
-                Hint(solver, firstPlan.Solver);
-            }
-            Report("solving");
-            var (status, gapPercent) = SolveWhole(solver, backend);
-            if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
-            {
-                whole = new SolvedModel(solver, model, solver.Objective().Value(), status);
-            }
-            else if (UsesFixAndOptimise(backend) && firstPlan is not null && !ProvenWithinGap(incumbent))
-            {
-                // Over several days, the time the whole MILP leaves goes to improving the first plan day by day
-                // (see docs/formulation.md, "Scaling").
-                var dayByDayNotes = new List<string>();
-                dayByDay = Await(StartFixAndOptimise(backend, firstPlan, dayByDayNotes));
-                notes.AddRange(dayByDayNotes);
-                cancellation.ThrowIfCancellationRequested();
-            }
-            return Finish(backend, solver, model, status, gapPercent, whole, dayByDay, firstPlan);
-        }
-        finally
+    /// <summary>What the whole MILP gave: its plan (null when none), its status (null when it was not run), SCIP's
+    /// reported bound, and the gap HiGHS was last asked for.</summary>
+    private sealed record WholeMilp(KeptPlan? Plan, Solver.ResultStatus? Status, double ReportedBound, double GapPercent);
+
+    // Without the relaxation's time there is no telling how long the MILP's root LP takes, and HiGHS would overrun.
+    private bool WholeMilpFits(string backend)
+    {
+        if (relaxationSeconds is not { } lpSeconds)
         {
-            firstPlan?.Dispose();
-            dayByDay?.Dispose();
-            solver.Dispose();
+            notes.Add("the whole MILP was not started: its root LP is the LP relaxation, which did not finish in time");
+            return false;
         }
+        var firstTry = SearchSecondsLeft() * (backend == SolverBackend.Highs ? HighsFirstTryShare : 1);
+        if (firstTry < RootLpFactor * lpSeconds)
+        {
+            notes.Add($"the whole MILP was not started: the LP relaxation took {lpSeconds:0.#} s and its search would have had {Math.Max(0, firstTry):0.#} s");
+            return false;
+        }
+        return true;
+    }
+
+    // A day window re-solves the whole horizon's LP with one day's decisions free: its root LP takes about what the
+    // LP with the baseline's decisions took, and no window is started without that time (twice over).
+    private bool FixAndOptimiseFits()
+    {
+        if (relaxationSeconds is null || baselineLpSeconds is not { } lpSeconds)
+        {
+            notes.Add("fix-and-optimise over days was not started: the LPs before it did not finish in time");
+            return false;
+        }
+        if (SearchSecondsLeft() / planningCase.Horizon.DayCount < WindowLeastSeconds(lpSeconds))
+        {
+            notes.Add($"fix-and-optimise over days was not started: a day window needs about {WindowLeastSeconds(lpSeconds):0.#} s " +
+                      $"and {Math.Max(0, SearchSecondsLeft()):0.#} s were left for {planningCase.Horizon.DayCount} days");
+            return false;
+        }
+        return true;
+    }
+
+    private static double WindowLeastSeconds(double fixedLpSeconds) => RootLpFactor * fixedLpSeconds;
+
+    private WholeMilp SolveWholeMilp(string backend, KeptPlan start)
+    {
+        Report("building the model");
+        using var solver = SolverBackend.CreateMip(backend)!;
+        var model = PlanModel.Build(solver, planningCase, IntegerMode.Integer);
+        NoteModel(model);
+        if (backend == SolverBackend.Scip)
+        {
+            Hint(solver, start.IntegerValues);
+        }
+        Report("solving");
+        var (status, gapPercent) = SolveWhole(solver, backend);
+        var plan = status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE
+            ? KeptPlan.Read(new SolvedModel(solver, model, solver.Objective().Value(), status), KeptPlan.WholeMilp)
+            : null;
+        return new WholeMilp(plan, status, solver.Objective().BestBound(), gapPercent);
+    }
+
+    private KeptPlan? ImproveDayByDay(string backend, KeptPlan start)
+    {
+        var dayByDayNotes = new List<string>();
+        var values = new Dictionary<string, double>(start.IntegerValues);
+        var leastWindowSeconds = WindowLeastSeconds(baselineLpSeconds ?? 0);
+        var task = Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes)
+            .Improve(start.Objective, values, SearchSecondsLeft, cancellation, leastWindowSeconds), CancellationToken.None);
+        using var solved = Await(task);
+        notes.AddRange(dayByDayNotes);
+        cancellation.ThrowIfCancellationRequested();
+        return solved is null ? null : KeptPlan.Read(solved, KeptPlan.DayByDay);
     }
 
     // HiGHS returns nothing when it stops on its time limit, so over several days its second try is fix-and-optimise
     // rather than the whole MILP at a looser gap. SCIP keeps its incumbent at the limit and runs once.
     private bool UsesFixAndOptimise(string backend) => backend == SolverBackend.Highs && planningCase.Horizon.DayCount > 1;
-
-    private Task<SolvedModel?> StartFixAndOptimise(string backend, SolvedModel firstPlan, List<string> dayByDayNotes)
-    {
-        var values = firstPlan.Model.IntegerValues();
-        var objective = firstPlan.Objective;
-        return Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes).Improve(objective, values, Remaining, cancellation),
-            CancellationToken.None);
-    }
 
     // Waits for fix-and-optimise while reporting progress; a cancelled or failed run gives no plan.
     private SolvedModel? Await(Task<SolvedModel?>? task)
@@ -126,95 +172,84 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
     {
         if (backend != SolverBackend.Highs)
         {
-            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, Remaining(), notes));
+            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, SearchSecondsLeft(), notes));
             cancellation.ThrowIfCancellationRequested();
             return (status, options.GapPercent);
         }
-        var firstTry = Remaining() * HighsFirstTryShare;
+        var firstTry = SearchSecondsLeft() * HighsFirstTryShare;
         var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
         cancellation.ThrowIfCancellationRequested();
-        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || Remaining() < MinimumSecondTrySeconds || UsesFixAndOptimise(backend))
+        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || SearchSecondsLeft() < MinimumSecondTrySeconds || UsesFixAndOptimise(backend))
         {
             return (first, options.GapPercent);
         }
         var looser = Math.Max(options.GapPercent * 4, LooserGapPercent);
         notes.Add($"HiGHS did not reach a {options.GapPercent:0.###} % gap in {firstTry:0} s; it was run again to a {looser:0.###} % gap");
-        var second = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options with { GapPercent = looser }, Remaining(), notes));
+        var second = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options with { GapPercent = looser }, SearchSecondsLeft(), notes));
         cancellation.ThrowIfCancellationRequested();
         return (second, looser);
     }
 
-    private Plan Finish(string backend, Solver solver, PlanModel model, Solver.ResultStatus status, double gapPercent, SolvedModel? whole,
-        SolvedModel? dayByDay, SolvedModel? firstPlan)
+    private Plan Finish(string backend, WholeMilp whole, KeptPlan? dayByDay, KeptPlan start)
     {
-        var info = new SolveInfo
-        {
-            Status = SolveStatus.NoPlan,
-            Solver = $"{backend} via OR-Tools ({SolverBackend.Describe(status)})",
-            Variables = solver.NumVariables(),
-            IntegerVariables = model.IntegerDecisions.Count,
-            Constraints = solver.NumConstraints(),
-            Notes = notes,
-        };
-        // Prefer the whole MILP's plan, then fix-and-optimise's, unless a later one is strictly better.
-        var chosen = new[] { whole, dayByDay, firstPlan }.Where(p => p is not null)
-            .Aggregate((SolvedModel?)null, (best, p) => best is null || p!.Objective < best.Objective - 1e-9 * Math.Max(1, Math.Abs(best.Objective)) ? p : best);
-        if (chosen is null)
-        {
-            return EmptyPlans.NoPlan(planningCase, info with { SolveSeconds = clock.Elapsed.TotalSeconds },
-                $"the {backend} solver found no plan within {options.TimeLimitSeconds:0.#} s ({SolverBackend.Describe(status)}); " +
-                "allow a longer time limit, a larger gap or a shorter horizon", model.DataProblems);
-        }
+        // Prefer the whole MILP's plan, then fix-and-optimise's, unless a later one is strictly cheaper.
+        var chosen = new[] { whole.Plan, dayByDay, start }.Aggregate((KeptPlan?)null, KeptPlan.Cheaper)!;
+        var milpOutcome = whole.Status is { } ran ? $"found no plan in time ({SolverBackend.Describe(ran)})" : "was not run";
         if (chosen == dayByDay)
         {
-            notes.Add(whole is null
-                ? "the whole MILP found no plan in time: this is the first plan improved by fix-and-optimise over days"
+            notes.Add(whole.Plan is null
+                ? $"the whole MILP {milpOutcome}: this is {chosen.Source}"
                 : "fix-and-optimise over days found a better plan than the whole MILP in time");
         }
-        else if (chosen == firstPlan)
+        else if (chosen == start)
         {
-            notes.Add(whole is null
-                ? $"the whole MILP found no plan in time ({SolverBackend.Describe(status)}): this is the first plan rounded from the LP relaxation"
-                : "the whole MILP found no better plan in time than the first plan rounded from the LP relaxation");
+            notes.Add(whole.Plan is null
+                ? $"the whole MILP {milpOutcome}: this is {chosen.Source}"
+                : $"the whole MILP found no better plan in time than {chosen.Source}");
         }
 
-        var bound = Bounds.Best(backend, status, whole?.Objective, solver.Objective().BestBound(), relaxationBound, gapPercent, chosen.Objective, notes);
+        var status = whole.Status ?? Solver.ResultStatus.NOT_SOLVED;
+        var bound = Bounds.Best(backend, status, whole.Plan?.Objective, whole.ReportedBound, relaxationBound, whole.GapPercent, chosen.Objective, notes);
         var gap = Bounds.GapPercent(chosen.Objective, bound);
         // Optimal means proven within the asked gap, whichever plan is kept and whichever try found it.
         var planStatus = gap <= options.GapPercent + 1e-9 ? SolveStatus.Optimal : SolveStatus.Feasible;
-        info = info with { Status = planStatus, Objective = chosen.Objective, BestBound = bound, GapPercent = gap };
-
-        var plan = PlanExtractor.Extract(chosen.Model, info);
-        plan = plan with { Problems = [.. chosen.Model.DataProblems, .. ProblemReport.Find(chosen.Model, plan)] };
+        var info = new SolveInfo
+        {
+            Status = planStatus,
+            Solver = $"{backend} via OR-Tools ({(whole.Status is null ? "MILP not run" : SolverBackend.Describe(status))})",
+            Objective = chosen.Objective,
+            BestBound = bound,
+            GapPercent = gap,
+            Variables = modelSize?.Variables ?? 0,
+            IntegerVariables = modelSize?.Integers ?? 0,
+            Constraints = modelSize?.Constraints ?? 0,
+            Notes = notes,
+        };
+        var plan = chosen.Plan with { Solve = info };
         if (options.Explain)
         {
-            Report("explaining (marginal water costs)");
-            plan = Explanations.Add(planningCase, chosen.Model, plan, notes);
+            plan = Explain(plan, chosen.IntegerValues);
         }
         return plan with { Solve = plan.Solve with { SolveSeconds = clock.Elapsed.TotalSeconds, Notes = notes } };
     }
 
-    // The relaxation's optimum is a true lower bound (kept for HiGHS, whose own bound is not); its rounding is the first plan.
-    private SolvedModel? RelaxAndRound(string backend)
+    // The explanation LP has a time limit of its own; with less than the least time left it is not started.
+    private Plan Explain(Plan plan, IReadOnlyDictionary<string, double> integers)
     {
-        using var lp = SolverBackend.CreateRelaxation(options, Remaining() * RelaxationTimeShare, notes);
-        var relaxed = PlanModel.Build(lp, planningCase, IntegerMode.Relaxed);
-        var status = lp.Solve();
-        if (status != Solver.ResultStatus.OPTIMAL)
+        if (TimeLeft() < MinimumExplainSeconds)
         {
-            notes.Add($"the LP relaxation was not solved ({SolverBackend.Describe(status)}): no bound from it and no first plan");
-            return null;
+            notes.Add("marginal water costs and binding limits were not computed: the time limit was reached");
+            return plan;
         }
-        relaxationBound = lp.Objective().Value();
-        return FirstPlan.Build(planningCase, relaxed, options, Remaining() * FirstPlanTimeShare, notes);
+        Report("explaining (marginal water costs)");
+        return Explanations.Add(planningCase, integers, plan, TimeLeft(), notes);
     }
 
-    // SCIP takes a starting solution; HiGHS must never get one (SetHint crashes it).
-    private static void Hint(Solver scip, Solver solved)
+    // SCIP takes a starting solution (its integer decisions; SCIP completes the flows); HiGHS must never get one (SetHint crashes it).
+    private static void Hint(Solver scip, IReadOnlyDictionary<string, double> integers)
     {
-        var values = solved.variables().ToDictionary(v => v.Name(), v => v.SolutionValue());
-        var variables = scip.variables().Where(v => values.ContainsKey(v.Name())).ToArray();
-        scip.SetHint(variables, variables.Select(v => values[v.Name()]).ToArray());
+        var variables = scip.variables().Where(v => integers.ContainsKey(v.Name())).ToArray();
+        scip.SetHint(variables, variables.Select(v => integers[v.Name()]).ToArray());
     }
 
     // Solves on a worker thread so progress can be reported; the MPSolver API has no MIP callback in .NET.
@@ -243,5 +278,14 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         progress?.Report(new SolveProgress(phase, clock.Elapsed.TotalSeconds, options.TimeLimitSeconds, incumbent, relaxationBound, gap));
     }
 
-    private double Remaining() => Math.Max(1, options.TimeLimitSeconds - clock.Elapsed.TotalSeconds);
+    private double TimeLeft() => options.TimeLimitSeconds - clock.Elapsed.TotalSeconds;
+
+    // For the steps that start the plan: at least a second, so that tiny limits still give the baseline's LP a chance.
+    private double Remaining() => Math.Max(1, TimeLeft());
+
+    // For the search (whole MILP, fix-and-optimise): the time left less what the explanation LP will need.
+    private double SearchSecondsLeft() => TimeLeft() - ExplainReserveSeconds();
+
+    private double ExplainReserveSeconds() =>
+        options.Explain ? Math.Max(MinimumExplainSeconds, ExplainLpFactor * (baselineLpSeconds ?? MinimumExplainSeconds)) : 0;
 }

@@ -62,10 +62,11 @@ internal static class SolverBackend
     }
 
     /// <summary>An LP solver whose duals are right (HiGHS's LP wrapper returns row activities as duals).</summary>
-    public static Solver CreateDualLp()
+    public static Solver CreateDualLp(double timeLimitSeconds)
     {
         var solver = Solver.CreateSolver("GLOP");
         solver.SuppressOutput();
+        solver.SetTimeLimit(Milliseconds(timeLimitSeconds));
         solver.SetSolverSpecificParametersAsString("use_dual_simplex:true");
         return solver;
     }
