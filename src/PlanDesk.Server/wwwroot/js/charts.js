@@ -136,6 +136,22 @@ const dayLines = {
   },
 };
 
+const labelFont = '11px system-ui, sans-serif';
+const labelHeight = 14;
+
+// A short text on a white box ending at the plot's right edge, its box's top at `top`; the box keeps the text
+// readable where it crosses other lines, on screen and on paper.
+function drawEdgeLabel(ctx, chartArea, top, text, colour) {
+  ctx.font = labelFont;
+  ctx.textAlign = 'right';
+  ctx.textBaseline = 'alphabetic';
+  const width = ctx.measureText(text).width;
+  ctx.fillStyle = 'rgba(255, 255, 255, 0.9)';
+  ctx.fillRect(chartArea.right - width - 8, top, width + 6, labelHeight);
+  ctx.fillStyle = colour;
+  ctx.fillText(text, chartArea.right - 5, top + labelHeight - 3);
+}
+
 // Dashed horizontal lines across the whole plot at given values (a cap at 100 %), labelled at the right end.
 const guides = {
   id: 'guides',
@@ -157,13 +173,37 @@ const guides = {
       ctx.lineTo(chartArea.right, pixel);
       ctx.stroke();
       ctx.setLineDash([]);
-      ctx.font = '11px system-ui, sans-serif';
-      ctx.textAlign = 'right';
-      const width = ctx.measureText(guide.label).width;
-      ctx.fillStyle = 'rgba(255, 255, 255, 0.9)';
-      ctx.fillRect(chartArea.right - width - 8, pixel - 17, width + 6, 14);
-      ctx.fillStyle = guide.colour;
-      ctx.fillText(guide.label, chartArea.right - 5, pixel - 6);
+      drawEdgeLabel(ctx, chartArea, pixel - 17, guide.label, guide.colour);
+    }
+    ctx.restore();
+  },
+};
+
+// Names each visible limit line (from `limitLines`) at the plot's right end, inside the band between minimum and
+// maximum so a label never leaves the plot; a label that would cover one already placed moves further inside.
+const limitLabels = {
+  id: 'limitLabels',
+  afterDatasetsDraw(chart) {
+    const y = chart.scales.y;
+    const limits = chart.data.datasets
+      .map((dataset, index) => ({ dataset, index }))
+      .filter(({ dataset, index }) => dataset.limit && chart.isDatasetVisible(index));
+    if (!y || limits.length === 0) {
+      return;
+    }
+    const { ctx, chartArea } = chart;
+    const placed = [];
+    ctx.save();
+    for (const { dataset } of limits) {
+      const pixel = y.getPixelForValue(dataset.limit.value);
+      const inward = dataset.limit.kind === 'max' ? 1 : -1;
+      let top = inward > 0 ? pixel + 3 : pixel - labelHeight - 3;
+      while (placed.some(other => Math.abs(other - top) < labelHeight + 1)) {
+        top += inward * (labelHeight + 1);
+      }
+      top = Math.min(Math.max(top, chartArea.top), chartArea.bottom - labelHeight);
+      placed.push(top);
+      drawEdgeLabel(ctx, chartArea, top, dataset.limit.text, dataset.borderColor);
     }
     ctx.restore();
   },
@@ -198,7 +238,7 @@ export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods
         guides: { lines },
       },
     },
-    plugins: [dayLines, guides],
+    plugins: [dayLines, guides, limitLabels],
   });
   live.add(chart);
   return chart;
@@ -215,4 +255,20 @@ export function line(label, data, colour, { unit, decimals = 1, dashed = false, 
 
 export function bars(label, data, colour, { unit, decimals = 1, stack, yAxisID = 'y' } = {}) {
   return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9, maxBarThickness: 90, order: 1 };
+}
+
+/**
+ * A tank's maximum and minimum as flat dashed lines over `count` periods, each named at the plot's right end
+ * ("maximum 2 000 m3", or "T1 maximum 2 000 m3" with a `name`). The datasets carry `limit` ({ kind, value, text })
+ * so the label plugin and tests can find them.
+ */
+export function limitLines(count, { min, max, unit, decimals = 0, name = '', maxColour = colours.cap, minColour = colours.bound }) {
+  const limit = (kind, word, value, colour) => {
+    const label = name ? `${name} ${word}` : word;
+    return {
+      ...line(label, Array(count).fill(value), colour, { unit, decimals, dashed: true, width: 1.5 }),
+      limit: { kind, value, text: `${label} ${num(value, decimals)} ${unit}` },
+    };
+  };
+  return [limit('max', 'maximum', max, maxColour), limit('min', 'minimum', min, minColour)];
 }
