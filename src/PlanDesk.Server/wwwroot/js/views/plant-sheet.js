@@ -92,8 +92,11 @@ export function sheetCharts(sheet, actualsByStart, draws, suffix) {
     }
     const limits = limitsOf(t);
     if (limits) {
+      // With several tanks, each line is named after its tank, and every other tank is named at the left end so
+      // that close limits of two tanks (a minimum of 0 and one of 100 m3) do not compete for the same spot.
       const name = tanks.length > 1 ? t : '';
-      sets.push(...limitLines(sheet.hours.length, { min: limits.minM3, max: limits.maxM3, unit: 'm3', name, maxColour: colour, minColour: colour }));
+      const side = i % 2 === 0 ? 'right' : 'left';
+      sets.push(...limitLines(sheet.hours.length, { min: limits.minM3, max: limits.maxM3, unit: 'm3', name, maxColour: colour, minColour: colour, side }));
     }
     return sets;
   });
