@@ -33,7 +33,7 @@ public sealed class TargetsTests : IDisposable
     }
 
     [Fact]
-    public async Task PublishedTargetsCarryTheSheetTheVersionAndTheCaution()
+    public async Task PublishedTargetsCarryTheSheetTheVersionTheTankLimitsAndTheCaution()
     {
         var (_, plant) = await PublishedDayAsync();
 
@@ -45,6 +45,8 @@ public sealed class TargetsTests : IDisposable
         Assert.Equal(24, targets.Sheet.Hours.Count);
         Assert.Equal(26, targets.Sheet.Hours[0].TreatedM3); // the fake solver marks plans with the start day
         Assert.Contains("monitoring under its permit", targets.Sheet.Caution);
+        var tank = Assert.Single(targets.Sheet.Tanks);
+        Assert.Equal(("ashby-tank", 100.0, 2000.0), (tank.Tank.Value, tank.MinM3, tank.MaxM3)); // two-plants.json
     }
 
     [Fact]
@@ -67,7 +69,7 @@ public sealed class TargetsTests : IDisposable
     }
 
     [Fact]
-    public async Task AcceptTextCsvGivesOneRowPerPeriodAfterTheCautionLine()
+    public async Task AcceptTextCsvGivesOneRowPerPeriodAfterTheCautionLineEndingWithTheTankLimits()
     {
         var (_, plant) = await PublishedDayAsync();
         var request = new HttpRequestMessage(HttpMethod.Get, "/api/plants/ashby/targets/2027-03-26") { Headers = { Accept = { new MediaTypeWithQualityHeaderValue("text/csv") } } };
@@ -82,6 +84,8 @@ public sealed class TargetsTests : IDisposable
         Assert.Equal(24, lines.Count(l => !l.StartsWith('#')) - 1);
         Assert.StartsWith("2027-03-25T23:00:00Z,2027-03-26T00:00,26,", lines[3]);
         Assert.Contains("version 1, treatment level standard", lines[1]);
+        Assert.Equal(["tankMin:ashby-tankM3", "tankMax:ashby-tankM3"], header[^2..]);
+        Assert.EndsWith(",100,2000", lines[3]); // ashby-tank's limits in two-plants.json
     }
 
     [Fact]

@@ -22,6 +22,11 @@ public sealed record PlantDayTargets
     public required PermitTargets Permit { get; init; }
     public required EnergyBudget Energy { get; init; }
     public required IReadOnlyList<DeliveryTarget> Deliveries { get; init; }
+    /// <summary>
+    /// The minimum and maximum volume of each tank at the plant, so the tank level targets can be judged against
+    /// them. Empty on sheets published before the limits were part of the sheet.
+    /// </summary>
+    public IReadOnlyList<TankLimits> Tanks { get; init; } = [];
     /// <summary>The caution every target sheet carries.</summary>
     public string Caution { get; init; } = Cautions.TargetSheet;
 }
@@ -58,6 +63,9 @@ public sealed record EnergyBudget(double ImportKWh, double EngineKWh, double Exp
 
 /// <summary>Water expected to reach a customer from this plant's tanks during the day, m3.</summary>
 public sealed record DeliveryTarget(CustomerId Customer, string CustomerName, ClassId Class, double VolumeM3);
+
+/// <summary>A tank at the plant with the least and most it may hold, m3 (0 ≤ MinM3 ≤ MaxM3).</summary>
+public sealed record TankLimits(TankId Tank, string TankName, ClassId Class, double MinM3, double MaxM3);
 
 /// <summary>The cautions PlanDesk prints wherever a plan or a target is shown.</summary>
 public static class Cautions

@@ -43,6 +43,7 @@ public static class PlantDayTargetsBuilder
             Permit = PermitOf(planningCase, plan, plant, day, periods.Sum(t => outfall[t])),
             Energy = EnergyOf(planningCase, plantPlan, periods),
             Deliveries = DeliveriesOf(planningCase, plan, plant, periods),
+            Tanks = PlantTanks(network, plant).Select(k => new TankLimits(k.Id, k.Name, k.Class, k.MinM3, k.MaxM3)).ToList(),
         };
     }
 

@@ -13,7 +13,11 @@ public static class TargetWriters
 
     public static string ToJson(PlantDayTargets targets) => JsonSerializer.Serialize(targets, PlanJson.Options);
 
-    /// <summary>One row per period: 23 rows on a spring-forward day, 25 on a fall-back day (plus the header).</summary>
+    /// <summary>
+    /// One row per period: 23 rows on a spring-forward day, 25 on a fall-back day (plus the header). Each tank's
+    /// minimum and maximum come last, repeated on every row, so readers that take columns by position still find
+    /// the earlier columns where they were.
+    /// </summary>
     public static string ToCsv(PlantDayTargets targets)
     {
         var classes = targets.Hours.SelectMany(h => h.ProductionM3ByClass.Keys).Distinct().ToList();
@@ -24,7 +28,8 @@ public static class TargetWriters
             .Concat(classes.Select(c => $"production{c}M3"))
             .Concat(stages.Select(s => $"units:{s}"))
             .Concat(tanks.Select(k => $"tankEnd:{k}M3"))
-            .Concat(["outfallM3", "importKWh", "engineKWh", "exportKWh"]);
+            .Concat(["outfallM3", "importKWh", "engineKWh", "exportKWh"])
+            .Concat(targets.Tanks.SelectMany(k => new[] { $"tankMin:{k.Tank}M3", $"tankMax:{k.Tank}M3" }));
         csv.AppendLine(string.Join(",", header.Select(CsvField)));
         foreach (var hour in targets.Hours)
         {
@@ -38,7 +43,8 @@ public static class TargetWriters
                 .Concat(classes.Select(c => Number(hour.ProductionM3ByClass.GetValueOrDefault(c))))
                 .Concat(stages.Select(s => hour.UnitsRunning.GetValueOrDefault(s).ToString(CultureInfo.InvariantCulture)))
                 .Concat(tanks.Select(k => Number(hour.TankEndM3.GetValueOrDefault(k))))
-                .Concat([Number(hour.OutfallM3), Number(hour.ImportKWh), Number(hour.EngineKWh), Number(hour.ExportKWh)]);
+                .Concat([Number(hour.OutfallM3), Number(hour.ImportKWh), Number(hour.EngineKWh), Number(hour.ExportKWh)])
+                .Concat(targets.Tanks.SelectMany(k => new[] { Number(k.MinM3), Number(k.MaxM3) }));
             csv.AppendLine(string.Join(",", row.Select(CsvField)));
         }
         return csv.ToString();
@@ -67,6 +73,10 @@ public static class TargetWriters
         foreach (var delivery in targets.Deliveries)
         {
             sheet.AppendLine($"Delivery: {delivery.CustomerName} ({delivery.Customer}), class {delivery.Class}: {Amounts.Format(delivery.VolumeM3)} m3");
+        }
+        foreach (var tank in targets.Tanks)
+        {
+            sheet.AppendLine($"Tank limits: {tank.TankName} ({tank.Tank}), class {tank.Class}: {Amounts.Format(tank.MinM3)}–{Amounts.Format(tank.MaxM3)} m3");
         }
         sheet.AppendLine();
         AppendHours(sheet, targets);

@@ -136,6 +136,29 @@ const dayLines = {
   },
 };
 
+const labelFont = '11px system-ui, sans-serif';
+const labelHeight = 14;
+
+// Where a short label goes: a box `labelHeight` high at `top`, ending 2 px inside the plot's right edge or
+// starting 2 px inside its left edge.
+function labelBox(ctx, chartArea, text, top, side = 'right') {
+  ctx.font = labelFont;
+  const width = ctx.measureText(text).width + 6;
+  const left = side === 'left' ? chartArea.left + 2 : chartArea.right - width - 2;
+  return { text, side, left, right: left + width, top, bottom: top + labelHeight };
+}
+
+// A short text on a white box; the box keeps the text readable where it crosses other lines, on screen and on paper.
+function drawLabel(ctx, box, colour) {
+  ctx.font = labelFont;
+  ctx.textAlign = 'left';
+  ctx.textBaseline = 'alphabetic';
+  ctx.fillStyle = 'rgba(255, 255, 255, 0.9)';
+  ctx.fillRect(box.left, box.top, box.right - box.left, labelHeight);
+  ctx.fillStyle = colour;
+  ctx.fillText(box.text, box.left + 3, box.top + labelHeight - 3);
+}
+
 // Dashed horizontal lines across the whole plot at given values (a cap at 100 %), labelled at the right end.
 const guides = {
   id: 'guides',
@@ -157,13 +180,73 @@ const guides = {
       ctx.lineTo(chartArea.right, pixel);
       ctx.stroke();
       ctx.setLineDash([]);
-      ctx.font = '11px system-ui, sans-serif';
-      ctx.textAlign = 'right';
-      const width = ctx.measureText(guide.label).width;
-      ctx.fillStyle = 'rgba(255, 255, 255, 0.9)';
-      ctx.fillRect(chartArea.right - width - 8, pixel - 17, width + 6, 14);
-      ctx.fillStyle = guide.colour;
-      ctx.fillText(guide.label, chartArea.right - 5, pixel - 6);
+      drawLabel(ctx, labelBox(ctx, chartArea, guide.label, pixel - 17), guide.colour);
+    }
+    ctx.restore();
+  },
+};
+
+// Whether a drawn line or dot of a dataset other than the limit lines passes through the box (pixels).
+function crossesData(chart, box) {
+  const hits = (top, bottom) => top <= box.bottom + 1 && bottom >= box.top - 1;
+  return chart.data.datasets.some((dataset, index) => {
+    const meta = chart.getDatasetMeta(index);
+    if (dataset.limit || meta.type !== 'line' || !chart.isDatasetVisible(index)) {
+      return false;
+    }
+    const points = meta.data.filter(point => !point.skip);
+    if (dataset.showLine === false) {
+      return points.some(p => p.x >= box.left - 4 && p.x <= box.right + 4 && hits(p.y - 4, p.y + 4));
+    }
+    return points.slice(1).some((b, i) => {
+      const a = points[i];
+      const left = Math.max(Math.min(a.x, b.x), box.left);
+      const right = Math.min(Math.max(a.x, b.x), box.right);
+      if (left > right) {
+        return false;
+      }
+      const at = x => (a.x === b.x ? a.y : a.y + ((b.y - a.y) * (x - a.x)) / (b.x - a.x));
+      return a.x === b.x ? hits(Math.min(a.y, b.y), Math.max(a.y, b.y)) : hits(Math.min(at(left), at(right)), Math.max(at(left), at(right)));
+    });
+  });
+}
+
+// Names each visible limit line (from `limitLines`) at one end of the plot, next to its line: inside the band
+// between minimum and maximum, else outside it, at its own end, else at the other end, wherever it covers no
+// other label and no plotted level; failing that beside the line anyway, else further inside. Labels stay in the
+// plot and are drawn before the datasets, so a level passing a label stays in sight. The placed labels stay on
+// the chart as `limitLabelBoxes` (pixels) for tests.
+const limitLabels = {
+  id: 'limitLabels',
+  beforeDatasetsDraw(chart) {
+    const y = chart.scales.y;
+    const limits = chart.data.datasets.filter((dataset, index) => dataset.limit && chart.isDatasetVisible(index));
+    const placed = [];
+    chart.limitLabelBoxes = placed;
+    if (!y || limits.length === 0) {
+      return;
+    }
+    const { ctx, chartArea } = chart;
+    const fits = box => box.top >= chartArea.top && box.bottom <= chartArea.bottom;
+    const free = box => fits(box) && !placed.some(other => box.left < other.right && other.left < box.right && box.top < other.bottom && other.top < box.bottom);
+    const labels = limits.map(dataset => {
+      const { kind, value, text, side } = dataset.limit;
+      const pixel = y.getPixelForValue(value);
+      const inward = kind === 'max' ? 1 : -1;
+      const beside = (offset, end) => labelBox(ctx, chartArea, text, offset > 0 ? pixel + offset : pixel + offset - labelHeight, end);
+      const otherSide = side === 'left' ? 'right' : 'left';
+      const adjacent = [side, otherSide].flatMap(end => [beside(3 * inward, end), beside(-3 * inward, end)]);
+      const further = [1, 2, 3, 4, 5, 6].map(step => beside(inward * (3 + step * (labelHeight + 1)), side));
+      return { dataset, pixel, adjacent, further, spots: adjacent.slice(0, 2).filter(fits).length };
+    });
+    // A label with one spot beside its line (a line at the plot's edge) chooses first; one with two takes the other.
+    labels.sort((a, b) => a.spots - b.spots);
+    ctx.save();
+    for (const { dataset, pixel, adjacent, further } of labels) {
+      const box = adjacent.find(c => free(c) && !crossesData(chart, c)) ?? adjacent.find(free)
+        ?? further.find(c => free(c) && !crossesData(chart, c)) ?? further.find(free) ?? adjacent.find(fits) ?? adjacent[0];
+      drawLabel(ctx, box, dataset.borderColor);
+      placed.push({ ...box, line: pixel });
     }
     ctx.restore();
   },
@@ -187,7 +270,8 @@ export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods
       interaction: { mode: 'index', intersect: false },
       scales: hourly ? { x: hourAxis(periods, zone, { stacked }), ...scales } : scales,
       plugins: {
-        legend: { display: legend, position: 'bottom', labels: { boxWidth: 14, color: colours.ink } },
+        // Limit lines are named on the plot itself, so the legend does not repeat them.
+        legend: { display: legend, position: 'bottom', labels: { boxWidth: 14, color: colours.ink, filter: (item, data) => !data.datasets[item.datasetIndex]?.limit } },
         tooltip: {
           callbacks: {
             title: items => (hourly && items.length ? periodTitle(periods[items[0].dataIndex]) : items[0]?.label ?? ''),
@@ -198,7 +282,7 @@ export function makeChart(canvas, { type = 'bar', datasets, scales = {}, periods
         guides: { lines },
       },
     },
-    plugins: [dayLines, guides],
+    plugins: [dayLines, guides, limitLabels],
   });
   live.add(chart);
   return chart;
@@ -215,4 +299,21 @@ export function line(label, data, colour, { unit, decimals = 1, dashed = false, 
 
 export function bars(label, data, colour, { unit, decimals = 1, stack, yAxisID = 'y' } = {}) {
   return { type: 'bar', label, data, unit, decimals, stack, yAxisID, backgroundColor: colour, borderWidth: 0, barPercentage: 1, categoryPercentage: 0.9, maxBarThickness: 90, order: 1 };
+}
+
+/**
+ * A tank's maximum and minimum as flat dashed lines over `count` periods, each named at the plot's right end
+ * ("maximum 2 000 m3", or "T1 maximum 2 000 m3" with a `name`) at the plot's right end, or its left end with
+ * `side: 'left'` (to keep two tanks' labels apart). The datasets carry `limit` ({ kind, value, side, text })
+ * so the label plugin and tests can find them.
+ */
+export function limitLines(count, { min, max, unit, decimals = 0, name = '', maxColour = colours.cap, minColour = colours.bound, side = 'right' }) {
+  const limit = (kind, word, value, colour) => {
+    const label = name ? `${name} ${word}` : word;
+    return {
+      ...line(label, Array(count).fill(value), colour, { unit, decimals, dashed: true, width: 1.5 }),
+      limit: { kind, value, side, text: `${label} ${num(value, decimals)} ${unit}` },
+    };
+  };
+  return [limit('max', 'maximum', max, maxColour), limit('min', 'minimum', min, minColour)];
 }

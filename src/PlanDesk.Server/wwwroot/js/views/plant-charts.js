@@ -3,7 +3,7 @@
 
 import { h, fill, note, panel } from '../dom.js';
 import { day, num, periodUnit } from '../format.js';
-import { chartBox, makeChart, colours, classColour, valueAxis, dayAxis, line, bars } from '../charts.js';
+import { chartBox, makeChart, colours, classColour, valueAxis, dayAxis, line, bars, limitLines } from '../charts.js';
 import { planDocument, planHeader, chooser } from './plan-common.js';
 
 const stagePalette = ['#5a4a8a', '#2c7f91', '#b97a2a', '#2f8a5c', '#7b2d3b', '#4f7896'];
@@ -52,8 +52,7 @@ export function tankChart(series, tank, draws) {
     type: 'line', periods: series.periods, zone: series.timeZone,
     datasets: [
       line('level', tank.levelM3, colours.level, { unit: 'm3', decimals: 0, fill: false, width: 2.5 }),
-      line('maximum', Array(count).fill(tank.maxM3), colours.cap, { unit: 'm3', decimals: 0, dashed: true, width: 1.5 }),
-      line('minimum', Array(count).fill(tank.minM3), colours.bound, { unit: 'm3', decimals: 0, dashed: true, width: 1.5 }),
+      ...limitLines(count, { min: tank.minM3, max: tank.maxM3, unit: 'm3' }),
     ],
     scales: { y: valueAxis('volume (m3)', { grace: '5%' }) },
   }));

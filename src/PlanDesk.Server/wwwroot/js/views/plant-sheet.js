@@ -3,7 +3,7 @@
 
 import { h, table } from '../dom.js';
 import { num, qty, clock, periodUnit } from '../format.js';
-import { chartBox, makeChart, colours, valueAxis, line, bars } from '../charts.js';
+import { chartBox, makeChart, colours, valueAxis, line, bars, limitLines } from '../charts.js';
 
 const purple = ['#3d1f6b', '#6a43a6', '#9474c6', '#b9a3dc'];
 const tankColours = ['#2c6e8f', '#2f8a5c', '#b97a2a', '#7b2d3b'];
@@ -79,15 +79,28 @@ export function sheetCharts(sheet, actualsByStart, draws, suffix) {
   }
   draws.push(() => makeChart(production.canvas, { datasets: productionSets, periods, zone: sheet.timeZone, stacked: true, scales: { y: valueAxis(`volume (m3 ${per})`, { stacked: true }) } }));
 
-  const levels = chartBox('Tank level targets', `m3 at the end of each hour${hasActuals ? '; dots: levels the plant reported' : ''}.`, { height: 230, testId: `sheet-tanks-${suffix}` });
+  // Sheets published before tank limits were added have no `tanks`; their chart simply draws no limit lines.
+  const limitsOf = t => (sheet.tanks ?? []).find(k => k.tank === t);
+  const hasLimits = tanks.some(limitsOf);
+  const levelCaption = `m3 at the end of each hour${hasLimits ? '; dashed: each tank\'s minimum and maximum' : ''}${hasActuals ? '; dots: levels the plant reported' : ''}.`;
+  const levels = chartBox('Tank level targets', levelCaption, { height: 230, testId: `sheet-tanks-${suffix}` });
   const levelSets = tanks.flatMap((t, i) => {
-    const sets = [line(`${t} target`, sheet.hours.map(hour => hour.tankEndM3[t] ?? null), tankColours[i % tankColours.length], { unit: 'm3', decimals: 0 })];
+    const colour = tankColours[i % tankColours.length];
+    const sets = [line(`${t} target`, sheet.hours.map(hour => hour.tankEndM3[t] ?? null), colour, { unit: 'm3', decimals: 0 })];
     if (hasActuals) {
-      sets.push({ ...line(`${t} actual`, sheet.hours.map(hour => actualOf(hour)?.tankLevelsM3?.[t] ?? null), tankColours[i % tankColours.length], { unit: 'm3', decimals: 0 }), showLine: false, pointRadius: 4 });
+      sets.push({ ...line(`${t} actual`, sheet.hours.map(hour => actualOf(hour)?.tankLevelsM3?.[t] ?? null), colour, { unit: 'm3', decimals: 0 }), showLine: false, pointRadius: 4 });
+    }
+    const limits = limitsOf(t);
+    if (limits) {
+      // With several tanks, each line is named after its tank, and every other tank is named at the left end so
+      // that close limits of two tanks (a minimum of 0 and one of 100 m3) do not compete for the same spot.
+      const name = tanks.length > 1 ? t : '';
+      const side = i % 2 === 0 ? 'right' : 'left';
+      sets.push(...limitLines(sheet.hours.length, { min: limits.minM3, max: limits.maxM3, unit: 'm3', name, maxColour: colour, minColour: colour, side }));
     }
     return sets;
   });
-  draws.push(() => makeChart(levels.canvas, { type: 'line', datasets: levelSets, periods, zone: sheet.timeZone, scales: { y: valueAxis('volume (m3)') } }));
+  draws.push(() => makeChart(levels.canvas, { type: 'line', datasets: levelSets, periods, zone: sheet.timeZone, scales: { y: valueAxis('volume (m3)', { grace: '5%' }) } }));
   return h('div', { class: 'chart-grid two' }, production.element, levels.element);
 }
 
