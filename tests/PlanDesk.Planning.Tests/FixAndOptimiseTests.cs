@@ -33,7 +33,7 @@ public class FixAndOptimiseTests
         Assert.NotNull(allOff);
         Assert.Equal(24_000.0, allOff.Objective, 1e-3);
 
-        using var improved = new FixAndOptimise(planningCase, SolverBackend.Highs, new SolveOptions(), [])
+        using var improved = new FixAndOptimise(planningCase, new SolveOptions(), [])
             .Improve(allOff.Objective, allOff.Model.IntegerValues(), () => 30, CancellationToken.None);
 
         Assert.NotNull(improved);
@@ -47,7 +47,7 @@ public class FixAndOptimiseTests
     {
         var planningCase = TwoDayCase();
         using var allOff = FirstPlan.SolveFixed(planningCase, AllOff(), new SolveOptions(), 30, []);
-        using var improved = new FixAndOptimise(planningCase, SolverBackend.Highs, new SolveOptions(), [])
+        using var improved = new FixAndOptimise(planningCase, new SolveOptions(), [])
             .Improve(allOff!.Objective, allOff.Model.IntegerValues(), () => 30, CancellationToken.None);
         Assert.NotNull(improved);
 
@@ -69,7 +69,7 @@ public class FixAndOptimiseTests
             values[$"units[filter,t{t}]"] = units;
         }
 
-        using var improved = new FixAndOptimise(planningCase, SolverBackend.Highs, new SolveOptions(), [])
+        using var improved = new FixAndOptimise(planningCase, new SolveOptions(), [])
             .Improve(optimal.Solve.Objective, values, () => 30, CancellationToken.None);
 
         Assert.Null(improved);

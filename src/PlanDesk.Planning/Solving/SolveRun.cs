@@ -21,6 +21,8 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     private const double HighsFirstTryShare = 0.65;
     private const double LooserGapPercent = 2.0;
     private const double MinimumSecondTrySeconds = 3.0;
+    // Share of the search time fix-and-optimise may use before the whole MILP gets the rest.
+    private const double FixAndOptimiseShare = 0.75;
     // The whole MILP starts only when its first try has this many times what the relaxation took: its root LP is that
     // LP again (with presolve and cuts), and HiGHS does not stop inside it on its time limit (overruns of 14-54 s measured).
     private const double RootLpFactor = 2.0;
@@ -48,18 +50,20 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
 
         var start = StartPlan();
         cancellation.ThrowIfCancellationRequested();
-        var whole = new WholeMilp(null, null, double.NaN, options.GapPercent);
-        if (WholeMilpFits(backend))
+        KeptPlan? dayByDay = null;
+        if (UsesFixAndOptimise() && !ProvenWithinGap(start.Objective) && FixAndOptimiseFits())
         {
-            whole = SolveWholeMilp(backend, start);
+            // Over several days, fix-and-optimise improves the start plan first, then the whole MILP gets the time
+            // left from the best plan (see docs/formulation.md, "Scaling").
+            dayByDay = ImproveDayByDay(start);
             MemoryRelease.AfterModel();
         }
-        KeptPlan? dayByDay = null;
-        if (whole.Plan is null && UsesFixAndOptimise(backend) && !ProvenWithinGap(start.Objective) && FixAndOptimiseFits())
+        var best = KeptPlan.Cheaper(start, dayByDay)!;
+        incumbent = best.Objective;
+        var whole = new WholeMilp(null, null, double.NaN, options.GapPercent);
+        if (!ProvenWithinGap(best.Objective) && WholeMilpFits(backend))
         {
-            // Over several days, the time the whole MILP leaves goes to improving the start plan day by day
-            // (see docs/formulation.md, "Scaling").
-            dayByDay = ImproveDayByDay(backend, start);
+            whole = SolveWholeMilp(backend, best);
             MemoryRelease.AfterModel();
         }
         return Finish(backend, whole, dayByDay, start);
@@ -124,22 +128,26 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         return new WholeMilp(plan, status, solver.Objective().BestBound(), gapPercent);
     }
 
-    private KeptPlan? ImproveDayByDay(string backend, KeptPlan start)
+    private KeptPlan? ImproveDayByDay(KeptPlan start)
     {
         var dayByDayNotes = new List<string>();
         var values = new Dictionary<string, double>(start.IntegerValues);
         var leastWindowSeconds = WindowLeastSeconds(baselineLpSeconds ?? 0);
-        var task = Task.Run(() => new FixAndOptimise(planningCase, backend, options, dayByDayNotes)
-            .Improve(start.Objective, values, SearchSecondsLeft, cancellation, leastWindowSeconds), CancellationToken.None);
+        // The whole MILP runs afterwards only from M-sized models down (see WholeMilpFits); the windows keep a share
+        // of the search time for it.
+        var deadline = clock.Elapsed.TotalSeconds + SearchSecondsLeft() * FixAndOptimiseShare;
+        double WindowSecondsLeft() => Math.Min(SearchSecondsLeft(), deadline - clock.Elapsed.TotalSeconds);
+        var task = Task.Run(() => new FixAndOptimise(planningCase, options, dayByDayNotes)
+            .Improve(start.Objective, values, WindowSecondsLeft, cancellation, leastWindowSeconds), CancellationToken.None);
         using var solved = Await(task);
         notes.AddRange(dayByDayNotes);
         cancellation.ThrowIfCancellationRequested();
         return solved is null ? null : KeptPlan.Read(solved, KeptPlan.DayByDay);
     }
 
-    // HiGHS returns nothing when it stops on its time limit, so over several days its second try is fix-and-optimise
-    // rather than the whole MILP at a looser gap. SCIP keeps its incumbent at the limit and runs once.
-    private bool UsesFixAndOptimise(string backend) => backend == SolverBackend.Highs && planningCase.Horizon.DayCount > 1;
+    // Over several days the whole MILP rarely finishes in time (HiGHS then returns nothing), so fix-and-optimise runs
+    // first, whichever backend; over one day the whole MILP is quick and runs alone.
+    private bool UsesFixAndOptimise() => planningCase.Horizon.DayCount > 1;
 
     // Waits for fix-and-optimise while reporting progress; a cancelled or failed run gives no plan.
     private SolvedModel? Await(Task<SolvedModel?>? task)
@@ -179,7 +187,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         var firstTry = SearchSecondsLeft() * HighsFirstTryShare;
         var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
         cancellation.ThrowIfCancellationRequested();
-        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || SearchSecondsLeft() < MinimumSecondTrySeconds || UsesFixAndOptimise(backend))
+        if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || SearchSecondsLeft() < MinimumSecondTrySeconds || UsesFixAndOptimise())
         {
             return (first, options.GapPercent);
         }
