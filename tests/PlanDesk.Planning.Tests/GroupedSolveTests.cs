@@ -95,9 +95,10 @@ public class GroupedSolveTests
         var plan = Planner.Solve(planningCase, Options, reports);
 
         Assert.NotEmpty(reports.Items);
-        Assert.All(reports.Items, r => Assert.StartsWith("solving 3 independent groups", r.Phase));
+        Assert.All(reports.Items, r => Assert.EndsWith(" (3 independent groups)", r.Phase));
+        Assert.Equal("building the model (3 independent groups)", reports.Items[0].Phase);
         var last = reports.Items[^1];
-        Assert.Equal("solving 3 independent groups (3 done)", last.Phase);
+        Assert.Equal("joining the group plans (3 independent groups)", last.Phase);
         Assert.NotNull(last.Incumbent);
         Assert.Equal(plan.Solve.Objective, last.Incumbent!.Value, 1e-6 * Math.Max(1, Math.Abs(plan.Solve.Objective)));
         Assert.Equal(plan.Solve.BestBound, last.BestBound!.Value, 1e-6 * Math.Max(1, Math.Abs(plan.Solve.Objective)));

@@ -87,11 +87,15 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         {
             return;
         }
-        var done = states.Count(s => s.Plan is not null);
+        // Each group's own phase would flicker between groups; the earliest phase of the running ones says how far all have got.
+        var running = states.Where(s => s.Plan is null && s.Phase is not null).Select(s => s.Phase!).ToList();
+        var phase = states.All(s => s.Plan is not null) ? SolvePhases.Joining
+            : running.Count == 0 ? SolvePhases.Building
+            : SolvePhases.Earliest(running);
         var incumbent = SumOrNull(states.Select(s => s.Incumbent));
         var bound = SumOrNull(states.Select(s => s.Bound));
         var gap = incumbent is { } best && bound is { } lower ? Bounds.GapPercent(best, Math.Min(lower, best)) : (double?)null;
-        progress.Report(new SolveProgress($"solving {groups.Count} independent groups ({done} done)", clock.Elapsed.TotalSeconds,
+        progress.Report(new SolveProgress($"{phase} ({groups.Count} independent groups)", clock.Elapsed.TotalSeconds,
             options.TimeLimitSeconds, incumbent, bound, gap));
     }
 
@@ -116,6 +120,9 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         private volatile Plan? plan;
 
         public Plan? Plan => plan;
+
+        /// <summary>The phase last reported; null until the group's solve has started.</summary>
+        public string? Phase => latest?.Phase;
 
         public double? Incumbent => plan is { } p
             ? p.Solve.Status == SolveStatus.NoPlan ? null : p.Solve.Objective

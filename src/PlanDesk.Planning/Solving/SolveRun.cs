@@ -40,7 +40,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
                 $"unknown solver '{options.Solver}': choose one of {string.Join(", ", SolverBackend.Supported)}");
         }
 
-        Report("building the model");
+        Report(SolvePhases.Building);
         var solver = SolverBackend.CreateMip(backend)!;
         SolvedModel? firstPlan = null;
         SolvedModel? dayByDay = null;
@@ -49,7 +49,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         {
             var model = PlanModel.Build(solver, planningCase, IntegerMode.Integer);
             notes.AddRange(model.Notes);
-            Report("relaxation and first plan");
+            Report(SolvePhases.FirstPlan);
             firstPlan = RelaxAndRound(backend);
             incumbent = firstPlan?.Objective;
             cancellation.ThrowIfCancellationRequested();
@@ -58,7 +58,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
             {
                 Hint(solver, firstPlan.Solver);
             }
-            Report("solving");
+            Report(SolvePhases.Solving);
             var (status, gapPercent) = SolveWhole(solver, backend);
             if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
             {
@@ -104,7 +104,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         }
         while (!((IAsyncResult)task).AsyncWaitHandle.WaitOne(ProgressInterval))
         {
-            Report("solving day by day");
+            Report(SolvePhases.DayByDay);
         }
         if (task.IsFaulted)
         {
@@ -188,7 +188,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         plan = plan with { Problems = [.. chosen.Model.DataProblems, .. ProblemReport.Find(chosen.Model, plan)] };
         if (options.Explain)
         {
-            Report("explaining (marginal water costs)");
+            Report(SolvePhases.Explaining);
             plan = Explanations.Add(planningCase, chosen.Model, plan, notes);
         }
         return plan with { Solve = plan.Solve with { SolveSeconds = clock.Elapsed.TotalSeconds, Notes = notes } };
@@ -228,7 +228,7 @@ internal sealed class SolveRun(PlanningCase planningCase, SolveOptions options, 
         var interrupted = false;
         while (!solve.Wait(ProgressInterval, CancellationToken.None))
         {
-            Report("solving");
+            Report(SolvePhases.Solving);
             if (cancellation.IsCancellationRequested && !interrupted)
             {
                 interrupted = solver.InterruptSolve();
