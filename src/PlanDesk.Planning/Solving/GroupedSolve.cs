@@ -27,22 +27,24 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         // HiGHS's thread count is one per process and concurrent instances must share it: one thread per group when
         // groups run side by side, so the workers together use the threads asked for.
         var groupOptions = workerCount > 1 ? options with { Threads = 1 } : options;
+        // A group that fails stops the others: the region gets no plan without it.
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
         Report();
-        var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, groupOptions), CancellationToken.None)).ToArray();
+        var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, groupOptions, stop), CancellationToken.None)).ToArray();
         var all = Task.WhenAll(workers);
         while (!((IAsyncResult)all).AsyncWaitHandle.WaitOne(ProgressInterval))
         {
             Report();
         }
-        if (all.IsFaulted)
+        if (!all.IsCompletedSuccessfully)
         {
-            var failure = all.Exception!.InnerExceptions.FirstOrDefault(e => e is not OperationCanceledException);
+            var failure = all.Exception?.InnerExceptions.FirstOrDefault(e => e is not OperationCanceledException);
             if (failure is not null)
             {
                 ExceptionDispatchInfo.Throw(failure);
             }
+            throw new OperationCanceledException(cancellation);
         }
-        cancellation.ThrowIfCancellationRequested();
         Report();
         var parts = groups.Select((group, i) => new GroupPlan(group, states[i].Plan!)).ToList();
         return GroupPlans.Join(planningCase, parts, options.GapPercent, clock.Elapsed.TotalSeconds);
@@ -62,17 +64,30 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         return queues;
     }
 
-    private void RunWorker(IReadOnlyList<int> queue, SolveOptions groupOptions)
+    private void RunWorker(IReadOnlyList<int> queue, SolveOptions groupOptions, CancellationTokenSource stop)
+    {
+        try
+        {
+            RunGroups(queue, groupOptions, stop.Token);
+        }
+        catch (Exception failure) when (failure is not OperationCanceledException)
+        {
+            stop.Cancel();
+            throw;
+        }
+    }
+
+    private void RunGroups(IReadOnlyList<int> queue, SolveOptions groupOptions, CancellationToken token)
     {
         for (var position = 0; position < queue.Count; position++)
         {
-            cancellation.ThrowIfCancellationRequested();
+            token.ThrowIfCancellationRequested();
             var index = queue[position];
             var left = queue.Skip(position).Sum(i => sizes[i]);
             var remainingSeconds = Math.Max(1, options.TimeLimitSeconds - clock.Elapsed.TotalSeconds);
             var budgetSeconds = remainingSeconds * sizes[index] / Math.Max(1, left);
             var groupCase = planningCase.Restrict(groups[index]);
-            var plan = new SolveRun(groupCase, groupOptions with { TimeLimitSeconds = budgetSeconds }, states[index], cancellation).Execute();
+            var plan = new SolveRun(groupCase, groupOptions with { TimeLimitSeconds = budgetSeconds }, states[index], token).Execute();
             states[index].Finish(plan);
         }
     }
