@@ -16,6 +16,9 @@ public sealed record SolveOptions
     public int Threads { get; init; } = 2;
     /// <summary>Compute marginal water costs and binding limits after the MILP (a fixed-integer LP re-solve).</summary>
     public bool Explain { get; init; } = true;
+    /// <summary>Solve each independent group of plants as its own model (exact; see <see cref="IndependentGroups"/>).
+    /// Off only to compare against the whole-region model.</summary>
+    internal bool SplitIntoGroups { get; init; } = true;
 }
 
 /// <summary>What a long solve reports while it runs; fields the backend does not expose are null.</summary>
@@ -25,7 +28,17 @@ public sealed record SolveProgress(string Phase, double ElapsedSeconds, double T
 public static class Planner
 {
     /// <summary>Always returns a plan record; when the solver found none, <c>Solve.Status</c> is noPlan and its arrays are empty.
+    /// A region that falls apart into independent groups of plants is solved group by group, <see cref="SolveOptions.Threads"/>
+    /// groups at once, and the group plans joined; that is exact, and the whole call keeps to the time limit.
     /// Cancelling stops SCIP at once and HiGHS after its current solve; it then throws <see cref="OperationCanceledException"/>.</summary>
-    public static Plan Solve(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress = null, CancellationToken cancellation = default) =>
-        new SolveRun(planningCase, options, progress, cancellation).Execute();
+    public static Plan Solve(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress = null, CancellationToken cancellation = default)
+    {
+        // An unknown solver name is reported once, for the region, by the single-model path.
+        var groups = options.SplitIntoGroups && SolverBackend.Normalise(options.Solver) is not null
+            ? IndependentGroups.Of(planningCase.Network)
+            : [];
+        return groups.Count > 1
+            ? new GroupedSolve(planningCase, groups, options, progress, cancellation).Execute()
+            : new SolveRun(planningCase, options, progress, cancellation).Execute();
+    }
 }

@@ -41,6 +41,30 @@ public sealed class PlanningCase
     public Plant PlantOf(Stage stage) => Network.Plant(stage.Plant);
     public Tariff TariffOf(Plant plant) => Network.Tariff(plant.Tariff);
 
+    /// <summary>The case for one group of plants: its part of the network, the same horizon, and the series already
+    /// resolved here for its elements (nothing is resolved again, so the values are the same).</summary>
+    public PlanningCase Restrict(PlantGroup group)
+    {
+        var network = IndependentGroups.Subnetwork(Network, group);
+        var plants = network.Plants.Select(p => p.Id).ToHashSet();
+        var stages = network.Stages.Select(s => s.Id).ToHashSet();
+        var customers = network.Customers.Select(c => c.Id).ToHashSet();
+        return new PlanningCase(network, Horizon)
+        {
+            InfluentM3 = Subset(InfluentM3, plants),
+            BiogasNm3 = Subset(BiogasNm3, plants),
+            ImportPricePerMWh = Subset(ImportPricePerMWh, plants),
+            AvailableUnits = Subset(AvailableUnits, stages),
+            DemandM3 = Subset(DemandM3, customers),
+            DailyVolumeM3 = Subset(DailyVolumeM3, customers),
+            MaxDeliveryM3 = Subset(MaxDeliveryM3, customers),
+            BillingMonth = BillingMonth,
+        };
+    }
+
+    private static Dictionary<TKey, TValue> Subset<TKey, TValue>(IReadOnlyDictionary<TKey, TValue> all, HashSet<TKey> keys) where TKey : notnull =>
+        all.Where(entry => keys.Contains(entry.Key)).ToDictionary(entry => entry.Key, entry => entry.Value);
+
     /// <summary>Resolves every series of <paramref name="network"/> onto a horizon of <paramref name="days"/> local days
     /// from <paramref name="startDate"/>. Returns the problems instead when a series does not cover the horizon.</summary>
     public static PlanningCaseResult Create(Network network, LocalDate startDate, int days)

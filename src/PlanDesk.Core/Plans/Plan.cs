@@ -75,6 +75,21 @@ public sealed record SolveInfo
     public int Constraints { get; init; }
     /// <summary>Values taken from reported actuals instead of the network file, in plain words.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+
+    /// <summary>(objective − bound) / |objective| in percent; 0 when both are 0, NaN without a bound.</summary>
+    public static double GapPercentBetween(double objective, double bound)
+    {
+        if (double.IsNaN(bound))
+        {
+            return double.NaN;
+        }
+        var difference = Math.Max(0, objective - bound);
+        if (Math.Abs(objective) < 1e-9)
+        {
+            return difference < 1e-9 ? 0 : double.NaN;
+        }
+        return 100.0 * difference / Math.Abs(objective);
+    }
 }
 
 public static class SolveStatus

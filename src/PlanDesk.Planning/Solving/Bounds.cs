@@ -1,4 +1,5 @@
 using Google.OrTools.LinearSolver;
+using PlanDesk.Core.Plans;
 
 namespace PlanDesk.Planning.Solving;
 
@@ -43,17 +44,5 @@ internal static class Bounds
     }
 
     /// <summary>(objective − bound) / |objective| in percent; 0 when both are 0, NaN without a bound.</summary>
-    public static double GapPercent(double objective, double bound)
-    {
-        if (double.IsNaN(bound))
-        {
-            return double.NaN;
-        }
-        var difference = Math.Max(0, objective - bound);
-        if (Math.Abs(objective) < 1e-9)
-        {
-            return difference < 1e-9 ? 0 : double.NaN;
-        }
-        return 100.0 * difference / Math.Abs(objective);
-    }
+    public static double GapPercent(double objective, double bound) => SolveInfo.GapPercentBetween(objective, bound);
 }

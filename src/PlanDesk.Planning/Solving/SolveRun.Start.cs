@@ -23,17 +23,17 @@ internal sealed partial class SolveRun
     /// own cost is reported as soon as it is known, so there is a plan within seconds at every size.</summary>
     private KeptPlan StartPlan()
     {
-        Report("rule-based baseline");
+        Report(SolvePhases.Baseline);
         var baseline = RuleBasedBaseline.Build(planningCase);
         // The baseline's cost comes from PlanCosting, the checker's accounting, which agrees with the objective.
         var start = new KeptPlan(KeptPlan.BaselineFlows, baseline.Costs.Total, BaselineStart.IntegerValues(planningCase, baseline), baseline);
         incumbent = start.Objective;
-        Report("first plan from the baseline's decisions");
+        Report(SolvePhases.BaselineDecisions);
         cancellation.ThrowIfCancellationRequested();
 
         start = KeptPlan.Cheaper(start, BaselineDecisions(baseline))!;
         incumbent = start.Objective;
-        Report("relaxation and first plan");
+        Report(SolvePhases.FirstPlan);
         cancellation.ThrowIfCancellationRequested();
 
         start = KeptPlan.Cheaper(start, RelaxAndRound())!;
@@ -77,7 +77,7 @@ internal sealed partial class SolveRun
             relaxationSeconds = clock.Elapsed.TotalSeconds - started;
             rounded = FirstPlan.Round(relaxed);
         }
-        Report("first plan from the relaxation");
+        Report(SolvePhases.RoundedPlan);
         MemoryRelease.AfterModel();
         var first = FirstPlan.Build(planningCase, rounded, options, Remaining() * FirstPlanTimeShare, notes);
         MemoryRelease.AfterModel();

@@ -112,7 +112,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
 
     private WholeMilp SolveWholeMilp(string backend, KeptPlan start)
     {
-        Report("building the model");
+        Report(SolvePhases.Building);
         using var solver = SolverBackend.CreateMip(backend)!;
         var model = PlanModel.Build(solver, planningCase, IntegerMode.Integer);
         NoteModel(model);
@@ -120,7 +120,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         {
             Hint(solver, start.IntegerValues);
         }
-        Report("solving");
+        Report(SolvePhases.Solving);
         var (status, gapPercent) = SolveWhole(solver, backend);
         var plan = status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE
             ? KeptPlan.Read(new SolvedModel(solver, model, solver.Objective().Value(), status), KeptPlan.WholeMilp)
@@ -158,7 +158,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         }
         while (!((IAsyncResult)task).AsyncWaitHandle.WaitOne(ProgressInterval))
         {
-            Report("solving day by day");
+            Report(SolvePhases.DayByDay);
         }
         if (task.IsFaulted)
         {
@@ -249,7 +249,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
             notes.Add("marginal water costs and binding limits were not computed: the time limit was reached");
             return plan;
         }
-        Report("explaining (marginal water costs)");
+        Report(SolvePhases.Explaining);
         return Explanations.Add(planningCase, integers, plan, TimeLeft(), notes);
     }
 
@@ -271,7 +271,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         var interrupted = false;
         while (!solve.Wait(ProgressInterval, CancellationToken.None))
         {
-            Report("solving");
+            Report(SolvePhases.Solving);
             if (cancellation.IsCancellationRequested && !interrupted)
             {
                 interrupted = solver.InterruptSolve();
