@@ -19,7 +19,7 @@ internal static class BenchCommand
         var solvers = new Option<string[]>("--solver")
         {
             Description = "MIP backend(s) to compare: HIGHS, SCIP; repeat the option or list several.",
-            DefaultValueFactory = _ => ["HIGHS"],
+            DefaultValueFactory = _ => ["SCIP"],
             AllowMultipleArgumentsPerToken = true,
         };
         var timeLimit = new Option<double>("--time-limit") { Description = "Time limit per solve, seconds.", DefaultValueFactory = _ => 120 };

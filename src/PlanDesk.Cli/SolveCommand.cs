@@ -27,7 +27,7 @@ internal static class SolveCommand
         var days = new Option<int?>("--days") { Description = "Days to plan, 1 to 7 (default: the file's horizon, else 1)." };
         var timeLimit = new Option<double>("--time-limit") { Description = "Seconds the solver may run.", DefaultValueFactory = _ => 60 };
         var gap = new Option<double>("--gap") { Description = "Relative gap at which the search stops, percent.", DefaultValueFactory = _ => 0.5 };
-        var solver = new Option<string>("--solver") { Description = "MIP backend: HIGHS or SCIP.", DefaultValueFactory = _ => "HIGHS" };
+        var solver = new Option<string>("--solver") { Description = "MIP backend: SCIP or HIGHS.", DefaultValueFactory = _ => "SCIP" };
         var output = new Option<string>("--out") { Description = "Where to write the plan (JSON).", DefaultValueFactory = _ => "plan.json" };
         var targets = new Option<string>("--targets") { Description = "Folder for the per-plant day targets (JSON, CSV, text).", DefaultValueFactory = _ => "targets" };
         var summaryJson = new Option<string?>("--summary-json") { Description = "Also write the summary as JSON to this file." };

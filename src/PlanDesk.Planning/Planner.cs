@@ -8,7 +8,7 @@ namespace PlanDesk.Planning;
 public sealed record SolveOptions
 {
     /// <summary>MIP backend: "HIGHS" or "SCIP" (see docs/formulation.md for the measured choice).</summary>
-    public string Solver { get; init; } = "HIGHS";
+    public string Solver { get; init; } = "SCIP";
     public double TimeLimitSeconds { get; init; } = 60;
     /// <summary>Relative gap at which the search stops, percent.</summary>
     public double GapPercent { get; init; } = 0.5;

@@ -96,7 +96,7 @@ public class GroupedSolveTests
 
         Assert.NotEmpty(reports.Items);
         Assert.All(reports.Items, r => Assert.EndsWith(" (3 independent groups)", r.Phase));
-        Assert.Equal("building the model (3 independent groups)", reports.Items[0].Phase);
+        Assert.Equal("rule-based baseline (3 independent groups)", reports.Items[0].Phase);
         var last = reports.Items[^1];
         Assert.Equal("joining the group plans (3 independent groups)", last.Phase);
         Assert.NotNull(last.Incumbent);

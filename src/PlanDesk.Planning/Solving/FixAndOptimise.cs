@@ -38,6 +38,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
         double leastWindowSeconds = MinimumWindowSeconds)
     {
         leastWindowSeconds = Math.Max(leastWindowSeconds, MinimumWindowSeconds);
+        var clock = System.Diagnostics.Stopwatch.StartNew();
         var windows = Windows();
         // Every variable's value in the start plan, for SCIP's hint: the flows of the start's decisions.
         var hint = StartValues(values, remainingSeconds());
@@ -62,7 +63,8 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
                     continue;
                 }
                 tried++;
-                var solved = SolveWindow(windows[index], values, hint, seconds);
+                var windowEnd = clock.Elapsed.TotalSeconds + seconds;
+                var solved = SolveWindow(windows[index], values, hint, () => windowEnd - clock.Elapsed.TotalSeconds);
                 MemoryRelease.AfterModel();
                 if (solved is null || solved.Objective >= Objective(best) - RelativeImprovement * Math.Max(1, Math.Abs(Objective(best))))
                 {
@@ -115,15 +117,21 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
 
     private static Dictionary<string, double> AllValues(Solver solver) => solver.variables().ToDictionary(v => v.Name(), v => v.SolutionValue());
 
-    private SolvedModel? SolveWindow(Window window, Dictionary<string, double> values, Dictionary<string, double> hint, double seconds)
+    // The window's time counts its model's building too: SCIP gets what is left of it once the model is built.
+    private SolvedModel? SolveWindow(Window window, Dictionary<string, double> values, Dictionary<string, double> hint, Func<double> secondsLeft)
     {
         var solver = SolverBackend.CreateMip(SolverBackend.Scip)!;
         var model = PlanModel.Build(solver, planningCase, new IntegerRule(window.Rule, values));
         var hinted = solver.variables().Where(v => hint.ContainsKey(v.Name())).ToArray();
         solver.SetHint(hinted, hinted.Select(v => hint[v.Name()]).ToArray());
+        var seconds = secondsLeft();
+        if (seconds < MinimumWindowSeconds)
+        {
+            solver.Dispose();
+            return null;
+        }
         var parameters = SolverBackend.ConfigureMip(solver, SolverBackend.Scip, options with { GapPercent = WindowGapPercent }, seconds, notes);
         var status = solver.Solve(parameters);
-        if (Environment.GetEnvironmentVariable("PD_DEBUG") is not null) Console.Error.WriteLine($"window {window.Name} {seconds:F1}s {status} {(status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE ? solver.Objective().Value() : double.NaN):F0} hinted {hinted.Length}/{solver.NumVariables()}");
         if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
         {
             return new SolvedModel(solver, model, solver.Objective().Value(), status);

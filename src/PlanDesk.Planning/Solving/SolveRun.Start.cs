@@ -31,12 +31,13 @@ internal sealed partial class SolveRun
         Report(SolvePhases.BaselineDecisions);
         cancellation.ThrowIfCancellationRequested();
 
-        start = KeptPlan.Cheaper(start, BaselineDecisions(baseline))!;
+        // On a tie the model's plan is kept: its problems are explained from the model (reasons, binding limits).
+        start = KeptPlan.Cheaper(BaselineDecisions(baseline), start)!;
         incumbent = start.Objective;
         Report(SolvePhases.FirstPlan);
         cancellation.ThrowIfCancellationRequested();
 
-        start = KeptPlan.Cheaper(start, RelaxAndRound())!;
+        start = KeptPlan.Cheaper(RelaxAndRound(), start)!;
         incumbent = start.Objective;
         return start;
     }

@@ -28,8 +28,9 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     private const double RootLpFactor = 2.0;
     // Time kept back for the explanation LP (GLOP, fixed decisions), as a multiple of what the baseline's LP (HiGHS) took, and at
     // least (measured at XL: explanation 9 s, the baseline's LP 19-54 s under load).
-    private const double ExplainLpFactor = 1.0;
+    private const double ExplainLpFactor = 2.0;
     private const double MinimumExplainSeconds = 1.0;
+    private const double LeastExplainReserveSeconds = 3.0;
     private static readonly TimeSpan ProgressInterval = TimeSpan.FromMilliseconds(500);
 
     private readonly Stopwatch clock = Stopwatch.StartNew();
@@ -295,5 +296,5 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     private double SearchSecondsLeft() => TimeLeft() - ExplainReserveSeconds();
 
     private double ExplainReserveSeconds() =>
-        options.Explain ? Math.Max(MinimumExplainSeconds, ExplainLpFactor * (baselineLpSeconds ?? MinimumExplainSeconds)) : 0;
+        options.Explain ? Math.Max(LeastExplainReserveSeconds, ExplainLpFactor * (baselineLpSeconds ?? MinimumExplainSeconds)) : 0;
 }
