@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Runtime.ExceptionServices;
+using PlanDesk.Core.Baseline;
 using PlanDesk.Core.Model;
 using PlanDesk.Core.Plans;
 
@@ -30,6 +31,12 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         var groupOptions = workerCount > 1 ? options with { Threads = 1 } : options;
         // A group that fails stops the others: the region gets no plan without it.
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
+        // Every group has a plan at once, its rule-based baseline (seconds even at 50 plants), so the region has one
+        // before the first group's solve starts; a group's own reports replace it once it runs.
+        for (var i = 0; i < groups.Count; i++)
+        {
+            states[i].StartFrom(RuleBasedBaseline.Build(planningCase.Restrict(groups[i])).Costs.Total);
+        }
         Report();
         var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, groupOptions, stop), CancellationToken.None)).ToArray();
         var all = Task.WhenAll(workers);
@@ -146,9 +153,14 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         /// <summary>The phase last reported; null until the group's solve has started.</summary>
         public string? Phase => latest?.Phase;
 
+        private double? baselineCost;
+
         public double? Incumbent => plan is { } p
             ? p.Solve.Status == SolveStatus.NoPlan ? null : p.Solve.Objective
-            : latest?.Incumbent;
+            : latest?.Incumbent ?? baselineCost;
+
+        /// <summary>The cost of the group's baseline plan, its incumbent until its own solve reports one.</summary>
+        public void StartFrom(double cost) => baselineCost = cost;
 
         public double? Bound => plan is { } p
             ? double.IsNaN(p.Solve.BestBound) ? null : p.Solve.BestBound
