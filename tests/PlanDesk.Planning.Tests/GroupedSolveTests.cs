@@ -97,6 +97,10 @@ public class GroupedSolveTests
         Assert.NotEmpty(reports.Items);
         Assert.All(reports.Items, r => Assert.EndsWith(" (3 independent groups)", r.Phase));
         Assert.Equal("rule-based baseline (3 independent groups)", reports.Items[0].Phase);
+        // A plan from the first report on: every group's baseline, which together are the region's baseline.
+        var baseline = Core.Baseline.RuleBasedBaseline.Build(planningCase).Costs.Total;
+        Assert.NotNull(reports.Items[0].Incumbent);
+        Assert.Equal(baseline, reports.Items[0].Incumbent!.Value, 1e-6 * Math.Max(1, baseline));
         var last = reports.Items[^1];
         Assert.Equal("joining the group plans (3 independent groups)", last.Phase);
         Assert.NotNull(last.Incumbent);
