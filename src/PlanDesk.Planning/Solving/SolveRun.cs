@@ -62,7 +62,10 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         var best = KeptPlan.Cheaper(start, dayByDay)!;
         incumbent = best.Objective;
         var whole = new WholeMilp(null, null, double.NaN, options.GapPercent);
-        if (!ProvenWithinGap(best.Objective) && WholeMilpFits(backend))
+        // Over one day the whole MILP is quick and runs even when the relaxation already proves the start plan: its
+        // plan is kept on a tie, and its on/off decisions are the ones the marginal water costs are read under (a
+        // rounded plan can leave a unit off where one more m3 would be made).
+        if ((!UsesFixAndOptimise() || !ProvenWithinGap(best.Objective)) && WholeMilpFits(backend))
         {
             whole = SolveWholeMilp(backend, best);
             MemoryRelease.AfterModel();
