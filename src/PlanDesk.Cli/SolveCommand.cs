@@ -160,7 +160,7 @@ internal static class SolveCommand
         }
         if (!string.Equals(options.Solver, "HIGHS", StringComparison.OrdinalIgnoreCase) && !string.Equals(options.Solver, "SCIP", StringComparison.OrdinalIgnoreCase))
         {
-            return $"--solver: '{options.Solver}' is not offered; choose HIGHS (the default) or SCIP";
+            return $"--solver: '{options.Solver}' is not offered; choose SCIP (the default) or HIGHS";
         }
         return null;
     }

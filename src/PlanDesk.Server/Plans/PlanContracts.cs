@@ -20,7 +20,7 @@ public sealed record SolveRequest
 }
 
 /// <summary>Solver settings; each left out takes the planner's default.</summary>
-/// <param name="Solver">HIGHS or SCIP.</param>
+/// <param name="Solver">SCIP (the default) or HIGHS.</param>
 /// <param name="TimeLimitSeconds">1 to 3600 s.</param>
 /// <param name="GapPercent">Relative gap at which the search stops, 0 to 100 %.</param>
 [JsonUnmappedMemberHandling(JsonUnmappedMemberHandling.Disallow)]
