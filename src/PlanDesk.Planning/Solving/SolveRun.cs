@@ -21,9 +21,8 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     private const double HighsFirstTryShare = 0.65;
     private const double LooserGapPercent = 2.0;
     private const double MinimumSecondTrySeconds = 3.0;
-    // Share of the search time fix-and-optimise may use before the whole MILP gets the rest. Measured at 60 s against
-    // 0.75: M seed 2 7.8 % against 10.2 % (the whole MILP found a better plan), M seed 1 the same, L 4.5 % against 4.2 %.
-    private const double FixAndOptimiseShare = 0.5;
+    // Share of the search time fix-and-optimise may use before the whole MILP gets the rest.
+    private const double FixAndOptimiseShare = 0.75;
     // The whole MILP starts only when its first try has this many times what the relaxation took: its root LP is that
     // LP again (with presolve and cuts), and HiGHS does not stop inside it on its time limit (overruns of 14-54 s measured).
     private const double RootLpFactor = 2.0;
