@@ -29,7 +29,7 @@ internal sealed partial class PlanModel
             foreach (var period in Horizon.Periods)
             {
                 var t = period.Index;
-                var units = IntVar(0, available[t], Name("units", stage.Id, P(t)), period.Day);
+                var units = IntVar(0, available[t], UnitsName(stage.Id, t), period.Day);
                 var feed = NumVar(0, stage.UnitMaxFlowM3PerHour * PeriodHours * available[t], Name("feed", stage.Id, P(t)));
                 var starts = NumVar(0, double.PositiveInfinity, Name("starts", stage.Id, P(t)));
                 Units[(stage.Id, t)] = units;

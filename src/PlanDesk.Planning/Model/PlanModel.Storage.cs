@@ -33,7 +33,7 @@ internal sealed partial class PlanModel
                 AddLoad(pipeline.PoweredBy, t, flow, pipeline.EnergyKWhPerM3);
                 if (pipeline.Pumps is { } pumps)
                 {
-                    var on = IntVar(0, pumps.Count, Name("pumps", pipeline.Id, P(t)), period.Day);
+                    var on = IntVar(0, pumps.Count, PumpsName(pipeline.Id, t), period.Day);
                     PumpsOn[(pipeline.Id, t)] = on;
                     AtLeastRow(0, Name("pump-min", pipeline.Id, P(t))).Add(flow, 1).Add(on, -pumps.MinFlowM3PerHour * PeriodHours);
                     AtMostRow(0, Name("pump-max", pipeline.Id, P(t))).Add(flow, 1).Add(on, -pumps.MaxFlowM3PerHour * PeriodHours);

@@ -52,7 +52,7 @@ internal sealed partial class PlanModel
                 var oneLevel = EqualRow(1, Name("one-level", plant.Id, DayLabel(day.Index)));
                 foreach (var level in allowed)
                 {
-                    var on = IntVar(0, 1, Name(LevelFamily, plant.Id, DayLabel(day.Index), level.Id), day.Index);
+                    var on = IntVar(0, 1, LevelName(plant.Id, day, level.Id), day.Index);
                     LevelOn[(plant.Id, day.Index, level.Id)] = on;
                     oneLevel.Add(on, 1);
                 }
@@ -60,27 +60,45 @@ internal sealed partial class PlanModel
         }
     }
 
-    // A level whose effluent breaks a concentration limit is never chosen. When none meets it the data leave no
-    // lawful choice: the tightest level is planned and the plan says so.
-    private IReadOnlyList<TreatmentLevel> LevelsWithinLimits(Plant plant)
+    /// <summary>
+    /// The levels the model builds for a plant: a level whose effluent breaks a concentration limit is never chosen.
+    /// When none meets it the data leave no lawful choice: only the tightest level is built (and the plan says so).
+    /// </summary>
+    public static IReadOnlyList<TreatmentLevel> LevelsBuilt(Plant plant)
+    {
+        var within = LevelsMeetingLimits(plant);
+        return within.Count > 0 ? within : [Tightest(plant)];
+    }
+
+    private static List<TreatmentLevel> LevelsMeetingLimits(Plant plant)
     {
         const double tolerance = 1e-9;
         var permit = plant.Permit;
-        var allowed = plant.Levels
+        return plant.Levels
             .Where(l => permit.MaxTotalNitrogenMgPerL is not { } maxN || l.EffluentTotalNitrogenMgPerL <= maxN + tolerance)
             .Where(l => permit.MaxTotalPhosphorusMgPerL is not { } maxP || l.EffluentTotalPhosphorusMgPerL <= maxP + tolerance)
             .ToList();
-        if (allowed.Count > 0)
+    }
+
+    private static TreatmentLevel Tightest(Plant plant) =>
+        plant.Levels.OrderBy(l => l.EffluentTotalNitrogenMgPerL).ThenBy(l => l.EffluentTotalPhosphorusMgPerL).First();
+
+    // The levels built, and a data problem when no level meets the concentration limits.
+    private IReadOnlyList<TreatmentLevel> LevelsWithinLimits(Plant plant)
+    {
+        var built = LevelsBuilt(plant);
+        if (LevelsMeetingLimits(plant).Count > 0)
         {
-            return allowed;
+            return built;
         }
-        var tightest = plant.Levels.OrderBy(l => l.EffluentTotalNitrogenMgPerL).ThenBy(l => l.EffluentTotalPhosphorusMgPerL).First();
+        var tightest = built[0];
+        var permit = plant.Permit;
         DataProblems.Add(new PlanProblem(
             "levelLimit", plant.Id.Value, null, tightest.EffluentTotalNitrogenMgPerL, "mg/L",
             $"plant {plant.Name}: no treatment level meets the permit's concentration limits " +
             $"(total N {permit.MaxTotalNitrogenMgPerL?.ToString() ?? "none"} mg/L, total P {permit.MaxTotalPhosphorusMgPerL?.ToString() ?? "none"} mg/L); " +
             $"the tightest level '{tightest.Name}' ({tightest.EffluentTotalNitrogenMgPerL} mg/L N, {tightest.EffluentTotalPhosphorusMgPerL} mg/L P) is planned"));
-        return [tightest];
+        return built;
     }
 
     /// <summary>

@@ -86,7 +86,21 @@ internal sealed partial class PlanModel
 
     private static string P(int period) => $"t{period}";
 
-    private string DayLabel(int day) => Horizon.Days[day].Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+    private string DayLabel(int day) => DateLabel(Horizon.Days[day]);
+
+    private static string DateLabel(PlanDay day) => day.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+
+    /// <summary>Name of y[p,d,m], the level decision, as the model builds it (for values given by name).</summary>
+    public static string LevelName(PlantId plant, PlanDay day, LevelId level) => Name(LevelFamily, plant, DateLabel(day), level);
+
+    /// <summary>Name of n[s,t], the units running, as the model builds it.</summary>
+    public static string UnitsName(StageId stage, int period) => Name(UnitsFamily, stage, P(period));
+
+    /// <summary>Name of the pumps running on a pipeline in a period, as the model builds it.</summary>
+    public static string PumpsName(PipelineId pipeline, int period) => Name(PumpsFamily, pipeline, P(period));
+
+    private const string UnitsFamily = "units";
+    private const string PumpsFamily = "pumps";
 
     private Variable NumVar(double lowerBound, double upperBound, string name) => Solver.MakeNumVar(lowerBound, upperBound, name);
 

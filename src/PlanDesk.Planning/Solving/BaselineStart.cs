@@ -11,8 +11,6 @@ namespace PlanDesk.Planning.Solving;
 /// </summary>
 internal static class BaselineStart
 {
-    private const double Tolerance = 1e-9;
-
     /// <summary>The baseline's levels, units and pumps fixed and the flows re-solved as an LP: never dearer than the
     /// baseline when its flows are feasible for the model. Null when the LP ends without a plan (out of time, or the
     /// baseline's decisions leave the model no way).</summary>
@@ -34,7 +32,7 @@ internal static class BaselineStart
 
     /// <summary>Integer values by name for <paramref name="baseline"/>'s levels, units and pumps. Only variables the
     /// model builds are named: a level the model does not allow (it breaks a concentration limit) is replaced by the
-    /// level the model plans instead.</summary>
+    /// level the model plans instead (<see cref="PlanModel.LevelsBuilt"/>).</summary>
     public static Dictionary<string, double> IntegerValues(PlanningCase planningCase, Plan baseline)
     {
         var network = planningCase.Network;
@@ -42,14 +40,13 @@ internal static class BaselineStart
         foreach (var plantPlan in baseline.Plants)
         {
             var plant = network.Plant(plantPlan.Plant);
-            var allowed = LevelsTheModelAllows(plant);
+            var allowed = PlanModel.LevelsBuilt(plant);
             foreach (var day in planningCase.Horizon.Days)
             {
                 var chosen = allowed.FirstOrDefault(l => l.Id == plantPlan.LevelByDay[day.Index]) ?? allowed[0];
-                var date = day.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture);
                 foreach (var level in allowed)
                 {
-                    values[PlanModel.Name("level", plant.Id, date, level.Id)] = level == chosen ? 1 : 0;
+                    values[PlanModel.LevelName(plant.Id, day, level.Id)] = level == chosen ? 1 : 0;
                 }
             }
         }
@@ -57,31 +54,16 @@ internal static class BaselineStart
         {
             for (var t = 0; t < stagePlan.UnitsRunning.Length; t++)
             {
-                values[PlanModel.Name("units", stagePlan.Stage, $"t{t}")] = stagePlan.UnitsRunning[t];
+                values[PlanModel.UnitsName(stagePlan.Stage, t)] = stagePlan.UnitsRunning[t];
             }
         }
         foreach (var pipelinePlan in baseline.Pipelines.Where(l => l.PumpsRunning is not null))
         {
             for (var t = 0; t < pipelinePlan.PumpsRunning!.Length; t++)
             {
-                values[PlanModel.Name("pumps", pipelinePlan.Pipeline, $"t{t}")] = pipelinePlan.PumpsRunning[t];
+                values[PlanModel.PumpsName(pipelinePlan.Pipeline, t)] = pipelinePlan.PumpsRunning[t];
             }
         }
         return values;
-    }
-
-    /// <summary>The model's rule for the levels it builds (PlanModel.LevelsWithinLimits, kept apart so the model's
-    /// files stay untouched): those within the permit's concentration limits, else only the tightest. A test checks
-    /// that every name given here is a variable of the model.</summary>
-    private static IReadOnlyList<TreatmentLevel> LevelsTheModelAllows(Plant plant)
-    {
-        var permit = plant.Permit;
-        var allowed = plant.Levels
-            .Where(l => permit.MaxTotalNitrogenMgPerL is not { } maxN || l.EffluentTotalNitrogenMgPerL <= maxN + Tolerance)
-            .Where(l => permit.MaxTotalPhosphorusMgPerL is not { } maxP || l.EffluentTotalPhosphorusMgPerL <= maxP + Tolerance)
-            .ToList();
-        return allowed.Count > 0
-            ? allowed
-            : [plant.Levels.OrderBy(l => l.EffluentTotalNitrogenMgPerL).ThenBy(l => l.EffluentTotalPhosphorusMgPerL).First()];
     }
 }

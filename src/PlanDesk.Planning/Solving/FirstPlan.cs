@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Globalization;
 using Google.OrTools.LinearSolver;
 using PlanDesk.Core.Model;
 using PlanDesk.Planning.Model;
@@ -78,7 +77,7 @@ internal static class FirstPlan
             var gapPeriods = (int)Math.Round(gapHours / planningCase.PeriodHours);
             foreach (var stage in planningCase.Network.Stages.Where(s => s.StartupCost > 0))
             {
-                var names = Enumerable.Range(0, planningCase.PeriodCount).Select(t => PlanModel.Name("units", stage.Id, $"t{t}")).ToArray();
+                var names = Enumerable.Range(0, planningCase.PeriodCount).Select(t => PlanModel.UnitsName(stage.Id, t)).ToArray();
                 var units = names.Select(name => (int)held[name]).ToArray();
                 if (FillShortDips(units, gapPeriods, planningCase.AvailableUnits[stage.Id]))
                 {
@@ -150,10 +149,9 @@ internal static class FirstPlan
             {
                 var plant = planningCase.Network.Plant(plantId);
                 var nutrient = PermitNutrient.Of(plant).First(n => n.Key == nutrientKey);
-                var date = planningCase.Horizon.Days[day].Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
-                var name = (TreatmentLevel level) => PlanModel.Name("level", plantId, date, level.Id);
-                // The levels the model builds are those the values name.
-                var levels = plant.Levels.Where(l => tighter.ContainsKey(name(l))).OrderBy(nutrient.EffluentMgPerL).ToList();
+                var planDay = planningCase.Horizon.Days[day];
+                var name = (TreatmentLevel level) => PlanModel.LevelName(plantId, planDay, level.Id);
+                var levels = PlanModel.LevelsBuilt(plant).OrderBy(nutrient.EffluentMgPerL).ToList();
                 var current = levels.FindIndex(l => tighter[name(l)] > 0.5);
                 if (current > 0)
                 {

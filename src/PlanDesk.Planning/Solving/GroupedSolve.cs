@@ -22,6 +22,7 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
     private readonly Stopwatch clock = Stopwatch.StartNew();
     private readonly GroupProgress[] states = groups.Select(_ => new GroupProgress()).ToArray();
     private readonly int[] sizes = groups.Select(g => g.Size(planningCase.Network)).ToArray();
+    private readonly PlanningCase[] groupCases = groups.Select(planningCase.Restrict).ToArray();
 
     public Plan Execute()
     {
@@ -33,9 +34,10 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
         // Every group has a plan at once, its rule-based baseline (seconds even at 50 plants), so the region has one
         // before the first group's solve starts; a group's own reports replace it once it runs.
+        var baselines = groupCases.Select(RuleBasedBaseline.Build).ToArray();
         for (var i = 0; i < groups.Count; i++)
         {
-            states[i].StartFrom(RuleBasedBaseline.Build(planningCase.Restrict(groups[i])).Costs.Total);
+            states[i].StartFrom(baselines[i]);
         }
         Report();
         var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, groupOptions, stop), CancellationToken.None)).ToArray();
@@ -98,9 +100,9 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
             var left = queue.Skip(position).Sum(i => sizes[i]);
             var remainingSeconds = Math.Max(1, options.TimeLimitSeconds - clock.Elapsed.TotalSeconds);
             var budgetSeconds = remainingSeconds * sizes[index] / Math.Max(1, left);
-            var groupCase = planningCase.Restrict(groups[index]);
             var startedSeconds = clock.Elapsed.TotalSeconds;
-            var plan = new SolveRun(groupCase, groupOptions with { TimeLimitSeconds = budgetSeconds }, states[index], token).Execute();
+            var plan = new SolveRun(groupCases[index], groupOptions with { TimeLimitSeconds = budgetSeconds }, states[index], token,
+                states[index].Baseline).Execute();
             var timing = $"solved from {startedSeconds:0.#} s to {clock.Elapsed.TotalSeconds:0.#} s of the region's solve, with a share of {budgetSeconds:0.#} s";
             states[index].Finish(plan with { Solve = plan.Solve with { Notes = [.. plan.Solve.Notes, timing] } });
         }
@@ -153,14 +155,14 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         /// <summary>The phase last reported; null until the group's solve has started.</summary>
         public string? Phase => latest?.Phase;
 
-        private double? baselineCost;
+        /// <summary>The group's rule-based plan: its incumbent until its own solve reports one, and that solve's start.</summary>
+        public Plan? Baseline { get; private set; }
 
         public double? Incumbent => plan is { } p
             ? p.Solve.Status == SolveStatus.NoPlan ? null : p.Solve.Objective
-            : latest?.Incumbent ?? baselineCost;
+            : latest?.Incumbent ?? Baseline?.Costs.Total;
 
-        /// <summary>The cost of the group's baseline plan, its incumbent until its own solve reports one.</summary>
-        public void StartFrom(double cost) => baselineCost = cost;
+        public void StartFrom(Plan baseline) => Baseline = baseline;
 
         public double? Bound => plan is { } p
             ? double.IsNaN(p.Solve.BestBound) ? null : p.Solve.BestBound

@@ -24,7 +24,7 @@ internal sealed partial class SolveRun
     private KeptPlan StartPlan()
     {
         Report(SolvePhases.Baseline);
-        var baseline = RuleBasedBaseline.Build(planningCase);
+        var baseline = knownBaseline ?? RuleBasedBaseline.Build(planningCase);
         // The baseline's cost comes from PlanCosting, the checker's accounting, which agrees with the objective.
         var start = new KeptPlan(KeptPlan.BaselineFlows, baseline.Costs.Total, BaselineStart.IntegerValues(planningCase, baseline), baseline);
         incumbent = start.Objective;

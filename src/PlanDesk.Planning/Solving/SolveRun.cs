@@ -11,11 +11,13 @@ namespace PlanDesk.Planning.Solving;
 /// <summary>
 /// One solve, in stages, each model disposed before the next is built: the rule-based baseline (a plan within
 /// seconds) and its on/off decisions with re-optimised flows; the LP relaxation (a true bound) and a plan rounded
-/// from it; the whole MILP in the time left (SCIP starts from the best of these); over several days, when HiGHS's
-/// first try finds nothing, fix-and-optimise over days from that plan; keep the cheapest plan; explain it with a
+/// from it; over several days, fix-and-optimise from the cheapest of these (SCIP windows); the whole MILP in the
+/// time left, unless the relaxation already proves the plan; keep the cheapest plan; explain it with a
 /// fixed-decision LP. A step that has no time limit of its own is not started when it could not end in time.
 /// </summary>
-internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation)
+/// <param name="knownBaseline">The case's rule-based plan when the caller has already built it (a group of a split region).</param>
+internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions options, IProgress<SolveProgress>? progress, CancellationToken cancellation,
+    Plan? knownBaseline = null)
 {
     // HiGHS's first try at the asked gap, as a share of the time left; the second try's gap and least time.
     private const double HighsFirstTryShare = 0.65;
