@@ -54,7 +54,7 @@ public class BaselineStartTests
         var baseline = RuleBasedBaseline.Build(planningCase);
         var notes = new List<string>();
 
-        var start = BaselineStart.Solve(planningCase, baseline, new SolveOptions(), 60, notes);
+        var start = BaselineStart.Solve(planningCase, baseline, 60, notes);
 
         Assert.NotNull(start);
         Assert.Empty(notes);

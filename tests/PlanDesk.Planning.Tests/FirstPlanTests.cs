@@ -60,7 +60,7 @@ public class FirstPlanTests
         var relaxed = Model.PlanModel.Build(lp, planningCase, Model.IntegerMode.Relaxed);
         Assert.Equal(Google.OrTools.LinearSolver.Solver.ResultStatus.OPTIMAL, lp.Solve());
 
-        var first = FirstPlan.Build(planningCase, relaxed, new SolveOptions(), 10, []);
+        var first = FirstPlan.Build(planningCase, relaxed, 10, []);
 
         Assert.NotNull(first);
         Assert.True(first.Objective >= 50.0 - 1e-6);

@@ -29,7 +29,7 @@ public class FixAndOptimiseTests
     public void ImprovesAnAllOffPlanButNeverBeatsTheOptimum()
     {
         var planningCase = TwoDayCase();
-        using var allOff = FirstPlan.SolveFixed(planningCase, AllOff(), new SolveOptions(), 30, []);
+        using var allOff = FirstPlan.SolveFixed(planningCase, AllOff(), 30);
         Assert.NotNull(allOff);
         Assert.Equal(24_000.0, allOff.Objective, 1e-3);
 
@@ -46,12 +46,12 @@ public class FixAndOptimiseTests
     public void ItsPlanIsAPlanOfTheWholeModel()
     {
         var planningCase = TwoDayCase();
-        using var allOff = FirstPlan.SolveFixed(planningCase, AllOff(), new SolveOptions(), 30, []);
+        using var allOff = FirstPlan.SolveFixed(planningCase, AllOff(), 30);
         using var improved = new FixAndOptimise(planningCase, new SolveOptions(), [])
             .Improve(allOff!.Objective, allOff.Model.IntegerValues(), () => 30, CancellationToken.None);
         Assert.NotNull(improved);
 
-        using var whole = FirstPlan.SolveFixed(planningCase, improved.Model.IntegerValues(), new SolveOptions(), 30, []);
+        using var whole = FirstPlan.SolveFixed(planningCase, improved.Model.IntegerValues(), 30);
 
         Assert.NotNull(whole);
         Assert.Equal(improved.Objective, whole.Objective, 1e-6 * Math.Max(1, improved.Objective));

@@ -58,6 +58,21 @@ public class SolverSettingsTests
         Assert.True(plan.Solve.BestBound >= 154.9845 - 1e-6);
     }
 
+    // HiGHS sizes one thread pool per process at its first solve; a solve's notes and plan must not depend on what the
+    // process solved before (a grouped solve runs each group with one thread, a single group asks for two).
+    [Theory]
+    [InlineData("HIGHS")]
+    [InlineData("SCIP")]
+    public void ThreadCountsOfEarlierSolvesLeaveNoTrace(string solver)
+    {
+        var plans = new[] { 1, 2, 1 }.Select(threads => Planner.Solve(ShiftCase(), new SolveOptions { Solver = solver, Threads = threads })).ToList();
+
+        Assert.All(plans, plan => Assert.Equal(SolveStatus.Optimal, plan.Solve.Status));
+        Assert.All(plans, plan => Assert.Equal(155.0, plan.Solve.Objective, 155.0 * 0.001));
+        Assert.All(plans, plan => Assert.DoesNotContain(plan.Solve.Notes, n => n.Contains("thread", StringComparison.OrdinalIgnoreCase)));
+        Assert.All(plans, plan => Assert.Equal(plans[0].Solve.Notes, plan.Solve.Notes));
+    }
+
     [Fact]
     public void UnknownSolverGivesNoPlanSaidPlainly()
     {

@@ -14,10 +14,10 @@ internal static class BaselineStart
     /// <summary>The baseline's levels, units and pumps fixed and the flows re-solved as an LP: never dearer than the
     /// baseline when its flows are feasible for the model. Null when the LP ends without a plan (out of time, or the
     /// baseline's decisions leave the model no way).</summary>
-    public static KeptPlan? Solve(PlanningCase planningCase, Plan baseline, SolveOptions options, double timeLimitSeconds, List<string> notes)
+    public static KeptPlan? Solve(PlanningCase planningCase, Plan baseline, double timeLimitSeconds, List<string> notes)
     {
         var values = IntegerValues(planningCase, baseline);
-        using var solved = FirstPlan.SolveFixed(planningCase, values, options, timeLimitSeconds, notes);
+        using var solved = FirstPlan.SolveFixed(planningCase, values, timeLimitSeconds);
         if (solved is null)
         {
             return null;

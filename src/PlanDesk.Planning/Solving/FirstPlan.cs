@@ -28,23 +28,22 @@ internal static class FirstPlan
     // A fixed-integer LP is not started with less time than this left: it would only hit its limit.
     private const double MinimumLpSeconds = 0.2;
 
-    public static KeptPlan? Build(PlanningCase planningCase, PlanModel relaxed, SolveOptions options, double timeLimitSeconds, List<string> notes) =>
-        Build(planningCase, Round(relaxed), options, timeLimitSeconds, notes);
+    public static KeptPlan? Build(PlanningCase planningCase, PlanModel relaxed, double timeLimitSeconds, List<string> notes) =>
+        Build(planningCase, Round(relaxed), timeLimitSeconds, notes);
 
     /// <summary>The first plan from integer values already rounded from a relaxation (<see cref="Round"/>), so the
     /// relaxation's solver can be disposed before these LPs are built. Each LP is read into a plan record and disposed
     /// before the next is built.</summary>
-    public static KeptPlan? Build(PlanningCase planningCase, Dictionary<string, double> rounded, SolveOptions options, double timeLimitSeconds,
-        List<string> notes)
+    public static KeptPlan? Build(PlanningCase planningCase, Dictionary<string, double> rounded, double timeLimitSeconds, List<string> notes)
     {
         // Every LP below shares the one time limit: the caller counts on the whole first plan ending within it.
         var clock = Stopwatch.StartNew();
         double Left() => timeLimitSeconds - clock.Elapsed.TotalSeconds;
-        var plan = SolveAndKeep(planningCase, rounded, options, Left(), notes);
+        var plan = SolveAndKeep(planningCase, rounded, Left());
         if (plan is not null)
         {
-            var (held, heldValues) = HoldUnitsThroughDips(planningCase, plan.Value, rounded, options, Left, notes);
-            return TightenLevelsOverCaps(planningCase, held, heldValues, options, Left, notes);
+            var (held, heldValues) = HoldUnitsThroughDips(planningCase, plan.Value, rounded, Left);
+            return TightenLevelsOverCaps(planningCase, held, heldValues, Left);
         }
         if (Left() < MinimumLpSeconds)
         {
@@ -52,7 +51,7 @@ internal static class FirstPlan
         }
         notes.Add("the rounded LP relaxation gave no first plan; the first plan switches every unit and pump off");
         var levelsOnly = rounded.Where(pair => PlanModel.IsLevelDecision(pair.Key)).ToDictionary();
-        return SolveAndKeep(planningCase, levelsOnly, options, Left(), notes)?.Plan;
+        return SolveAndKeep(planningCase, levelsOnly, Left())?.Plan;
     }
 
     /// <summary>
@@ -63,8 +62,8 @@ internal static class FirstPlan
     /// 1,489 EUR, first plan 36,742 → 34,670 EUR.
     /// </summary>
     private static ((KeptPlan Plan, List<DailyCap> OverCaps) Solved, Dictionary<string, double> Values) HoldUnitsThroughDips(
-        PlanningCase planningCase, (KeptPlan Plan, List<DailyCap> OverCaps) solved, Dictionary<string, double> values, SolveOptions options,
-        Func<double> secondsLeft, List<string> notes)
+        PlanningCase planningCase, (KeptPlan Plan, List<DailyCap> OverCaps) solved, Dictionary<string, double> values,
+        Func<double> secondsLeft)
     {
         foreach (var gapHours in HoldGapHours)
         {
@@ -92,7 +91,7 @@ internal static class FirstPlan
             {
                 continue;
             }
-            var candidate = SolveAndKeep(planningCase, held, options, secondsLeft(), notes);
+            var candidate = SolveAndKeep(planningCase, held, secondsLeft());
             if (candidate is not null && candidate.Value.Plan.Objective < solved.Plan.Objective - Tolerance)
             {
                 (solved, values) = (candidate.Value, held);
@@ -138,7 +137,7 @@ internal static class FirstPlan
     /// <summary>A rounded level can leave a day over its cap that a fractional level kept under it: such plant-days
     /// move to the next tighter level while that makes the plan cheaper.</summary>
     private static KeptPlan TightenLevelsOverCaps(PlanningCase planningCase, (KeptPlan Plan, List<DailyCap> OverCaps) solved,
-        Dictionary<string, double> values, SolveOptions options, Func<double> secondsLeft, List<string> notes)
+        Dictionary<string, double> values, Func<double> secondsLeft)
     {
         var (plan, overCaps) = solved;
         for (var round = 0; round < LevelRepairRounds && secondsLeft() >= MinimumLpSeconds; round++)
@@ -164,7 +163,7 @@ internal static class FirstPlan
             {
                 break;
             }
-            var candidate = SolveAndKeep(planningCase, tighter, options, secondsLeft(), notes);
+            var candidate = SolveAndKeep(planningCase, tighter, secondsLeft());
             if (candidate is null || candidate.Value.Plan.Objective >= plan.Objective - Tolerance)
             {
                 break;
@@ -179,9 +178,9 @@ internal static class FirstPlan
 
     // Solves the fixed LP, reads its plan and the daily caps it exceeds, and disposes it.
     private static (KeptPlan Plan, List<DailyCap> OverCaps)? SolveAndKeep(PlanningCase planningCase, Dictionary<string, double> values,
-        SolveOptions options, double timeLimitSeconds, List<string> notes)
+        double timeLimitSeconds)
     {
-        using var solved = SolveFixed(planningCase, values, options, timeLimitSeconds, notes);
+        using var solved = SolveFixed(planningCase, values, timeLimitSeconds);
         if (solved is null)
         {
             return null;
@@ -191,10 +190,10 @@ internal static class FirstPlan
         return (KeptPlan.Read(solved, KeptPlan.RoundedRelaxation), overCaps);
     }
 
-    internal static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values, SolveOptions options,
-        double timeLimitSeconds, List<string> notes)
+    internal static SolvedModel? SolveFixed(PlanningCase planningCase, IReadOnlyDictionary<string, double> values,
+        double timeLimitSeconds)
     {
-        var solver = SolverBackend.CreateRelaxation(options, timeLimitSeconds, notes);
+        var solver = SolverBackend.CreateRelaxation(timeLimitSeconds);
         var model = PlanModel.Build(solver, planningCase, IntegerMode.Fixed, values);
         var status = solver.Solve();
         if (status != Solver.ResultStatus.OPTIMAL)

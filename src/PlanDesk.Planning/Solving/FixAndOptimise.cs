@@ -111,7 +111,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
 
     private Dictionary<string, double>? StartValues(Dictionary<string, double> values, double seconds)
     {
-        using var solved = FirstPlan.SolveFixed(planningCase, values, options, seconds, notes);
+        using var solved = FirstPlan.SolveFixed(planningCase, values, seconds);
         return solved is null ? null : AllValues(solved.Solver);
     }
 
@@ -130,7 +130,7 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
             solver.Dispose();
             return null;
         }
-        var parameters = SolverBackend.ConfigureMip(solver, SolverBackend.Scip, options with { GapPercent = WindowGapPercent }, seconds, notes);
+        var parameters = SolverBackend.ConfigureMip(solver, SolverBackend.Scip, options with { GapPercent = WindowGapPercent }, seconds);
         var status = solver.Solve(parameters);
         if (status is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE)
         {

@@ -46,7 +46,7 @@ internal sealed partial class SolveRun
     private KeptPlan? BaselineDecisions(Plan baseline)
     {
         var started = clock.Elapsed.TotalSeconds;
-        var kept = BaselineStart.Solve(planningCase, baseline, options, Remaining() * BaselineLpTimeShare, notes);
+        var kept = BaselineStart.Solve(planningCase, baseline, Remaining() * BaselineLpTimeShare, notes);
         if (kept is null)
         {
             notes.Add("the LP with the baseline's on/off decisions gave no plan (out of time, or the baseline's decisions leave the model no way)");
@@ -63,7 +63,7 @@ internal sealed partial class SolveRun
     {
         var started = clock.Elapsed.TotalSeconds;
         Dictionary<string, double> rounded;
-        using (var lp = SolverBackend.CreateRelaxation(options, Remaining() * RelaxationTimeShare, notes))
+        using (var lp = SolverBackend.CreateRelaxation(Remaining() * RelaxationTimeShare))
         {
             var relaxed = PlanModel.Build(lp, planningCase, IntegerMode.Relaxed);
             NoteModel(relaxed);
@@ -80,7 +80,7 @@ internal sealed partial class SolveRun
         }
         Report(SolvePhases.RoundedPlan);
         MemoryRelease.AfterModel();
-        var first = FirstPlan.Build(planningCase, rounded, options, Remaining() * FirstPlanTimeShare, notes);
+        var first = FirstPlan.Build(planningCase, rounded, Remaining() * FirstPlanTimeShare, notes);
         MemoryRelease.AfterModel();
         return first;
     }

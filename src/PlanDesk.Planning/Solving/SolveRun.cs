@@ -187,12 +187,12 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     {
         if (backend != SolverBackend.Highs)
         {
-            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, SearchSecondsLeft(), notes));
+            var status = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, SearchSecondsLeft()));
             cancellation.ThrowIfCancellationRequested();
             return (status, options.GapPercent);
         }
         var firstTry = SearchSecondsLeft() * HighsFirstTryShare;
-        var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry, notes));
+        var first = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options, firstTry));
         cancellation.ThrowIfCancellationRequested();
         if (first is Solver.ResultStatus.OPTIMAL or Solver.ResultStatus.FEASIBLE || SearchSecondsLeft() < MinimumSecondTrySeconds || UsesFixAndOptimise())
         {
@@ -200,7 +200,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         }
         var looser = Math.Max(options.GapPercent * 4, LooserGapPercent);
         notes.Add($"HiGHS did not reach a {options.GapPercent:0.###} % gap in {firstTry:0} s; it was run again to a {looser:0.###} % gap");
-        var second = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options with { GapPercent = looser }, SearchSecondsLeft(), notes));
+        var second = RunSolve(solver, SolverBackend.ConfigureMip(solver, backend, options with { GapPercent = looser }, SearchSecondsLeft()));
         cancellation.ThrowIfCancellationRequested();
         return (second, looser);
     }

@@ -15,8 +15,11 @@ internal static class SolverBackend
     public const string Scip = "SCIP";
     public static IReadOnlyList<string> Supported { get; } = [Highs, Scip];
 
-    private static readonly Lock HighsThreadsLock = new();
-    private static int? highsThreads;
+    // HiGHS keeps one thread pool per process, sized by its first solve; a later solve asking for another size
+    // returns NOT_SOLVED (measured with 1.12). So every HiGHS solve runs on one thread: its LP relaxation took the
+    // same time on one thread as on two (generated M seed 2: 0.8-1.0 s against 0.8-1.1 s, measured), and grouped
+    // solves already run one solve per core.
+    private const int HighsThreads = 1;
 
     /// <summary>The MIP solver for a backend name (case-insensitive), or null for an unknown name.</summary>
     public static Solver? CreateMip(string backend) => Normalise(backend) switch
@@ -30,7 +33,7 @@ internal static class SolverBackend
         Supported.FirstOrDefault(s => string.Equals(s, backend, StringComparison.OrdinalIgnoreCase));
 
     /// <summary>Applies time limit, gap and threads; returns the parameters to pass to <c>Solve</c>.</summary>
-    public static MPSolverParameters ConfigureMip(Solver solver, string backend, SolveOptions options, double timeLimitSeconds, List<string> notes)
+    public static MPSolverParameters ConfigureMip(Solver solver, string backend, SolveOptions options, double timeLimitSeconds)
     {
         solver.SuppressOutput();
         solver.SetTimeLimit(Milliseconds(timeLimitSeconds));
@@ -40,7 +43,7 @@ internal static class SolverBackend
         {
             // Returns false even when applied (measured); an unknown key would make Solve return status 85.
             solver.SetSolverSpecificParametersAsString(
-                $"mip_rel_gap={gap.ToString("R", CultureInfo.InvariantCulture)},threads={HighsThreads(options.Threads, notes)},output_flag=false");
+                $"mip_rel_gap={gap.ToString("R", CultureInfo.InvariantCulture)},threads={HighsThreads},output_flag=false");
         }
         else
         {
@@ -52,12 +55,12 @@ internal static class SolverBackend
     }
 
     /// <summary>An LP solver for the relaxation bound: HiGHS's LP, the fastest measured.</summary>
-    public static Solver CreateRelaxation(SolveOptions options, double timeLimitSeconds, List<string> notes)
+    public static Solver CreateRelaxation(double timeLimitSeconds)
     {
         var solver = Solver.CreateSolver("HIGHS_LP");
         solver.SuppressOutput();
         solver.SetTimeLimit(Milliseconds(timeLimitSeconds));
-        solver.SetSolverSpecificParametersAsString($"threads={HighsThreads(options.Threads, notes)},output_flag=false");
+        solver.SetSolverSpecificParametersAsString($"threads={HighsThreads},output_flag=false");
         return solver;
     }
 
@@ -82,21 +85,6 @@ internal static class SolverBackend
 
     public static string Describe(Solver.ResultStatus status) =>
         Enum.IsDefined(status) ? status.ToString() : $"undefined status {(int)status}";
-
-    // HiGHS keeps one thread pool per process, sized by the first solve; a later solve asking for another size
-    // returns NOT_SOLVED (measured with 1.12). So the first size is kept for the life of the process.
-    private static int HighsThreads(int requested, List<string> notes)
-    {
-        lock (HighsThreadsLock)
-        {
-            highsThreads ??= Math.Max(1, requested);
-            if (highsThreads.Value != Math.Max(1, requested))
-            {
-                notes.Add($"HiGHS runs with {highsThreads} threads in this process (it cannot change after the first solve); {requested} were asked for");
-            }
-            return highsThreads.Value;
-        }
-    }
 
     private static long Milliseconds(double seconds) => (long)Math.Clamp(seconds * 1000, 1, int.MaxValue);
 }
