@@ -18,7 +18,7 @@ namespace PlanDesk.Planning.Solving;
 internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions options, List<string> notes)
 {
     // A window is worth trying only with at least this much time; it stops improving below this relative gain.
-    private const double MinimumWindowSeconds = 1.0;
+    public const double MinimumWindowSeconds = 1.0;
     private const double RelativeImprovement = 1e-6;
     private const int MaximumPasses = 3;
     // A window stops at this gap to its own bound: it looks for the best plan of its neighbourhood, not a proof.
@@ -88,6 +88,14 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
         return best;
 
         double Objective(SolvedModel? plan) => plan?.Objective ?? startObjective;
+    }
+
+    /// <summary>The share of fix-and-optimise's time its first window gets: it is worth starting only when that
+    /// window fits.</summary>
+    public double FirstWindowShare()
+    {
+        var windows = Windows();
+        return windows[0].Weight / windows.Sum(w => w.Weight);
     }
 
     // Which decisions each window frees: every day's treatment levels, every unit and pump, then each local day's decisions.
