@@ -30,7 +30,7 @@ public class ModelStructureTests
     // Hand count, T = 24 periods, 1 day, 2 levels:
     // variables: level 2; treated, bypass 24 each; treated-at 48; units, feed, starts 24 each; secondary-to-outfall 24;
     // flow, pumps 24 each; volume, tank-below-min, tank-above-max 24 each; tank-end-deficit 1; short 24;
-    // nutrient-volume-at 2; tn-daily-excess 1; tn-daily-excess-at 2; import, export, engine, gas-to-engine, flare, holder 24 each; peak 1.
+    // nutrient-volume-at 2; reuse-at 2; tn-daily-excess 1; tn-daily-excess-at 2; import, export, engine, gas-to-engine, flare, holder 24 each; peak 1.
     // Integers: 2 levels + 24 units + 24 pumps = 50.
     [Fact]
     public void VariableFamiliesHaveOneVariablePerKey()
@@ -48,17 +48,18 @@ public class ModelStructureTests
         Assert.Equal(2, families["nutrient-volume-at"]);
         Assert.Equal(1, families["tn-daily-excess"]);
         Assert.Equal(2, families["tn-daily-excess-at"]);
+        Assert.Equal(2, families["reuse-at"]);
         Assert.Equal(1, families["peak"]);
         Assert.Equal(1, families["tank-end-deficit"]);
         Assert.False(families.ContainsKey("tp-daily-excess"));
         Assert.Equal(50, model.IntegerVariables.Count());
-        Assert.Equal(2 + 24 * 2 + 48 + 24 * 3 + 24 + 24 * 2 + 24 * 3 + 1 + 24 + 2 + 1 + 2 + 24 * 6 + 1, solver.NumVariables());
+        Assert.Equal(2 + 24 * 2 + 48 + 24 * 3 + 24 + 24 * 2 + 24 * 3 + 1 + 24 + 2 + 2 + 1 + 2 + 24 * 6 + 1, solver.NumVariables());
     }
 
     // Hand count of rows: one-level 1; influent, treated-split 24 each; level-gate 48; feed-min, feed-max, start-count,
     // min-run 24 each; secondary-effluent 24; pump-min, pump-max 24 each; tank-balance, tank-min, tank-max 24 each;
     // tank-end 1; deliver 24; nutrient-volume 1; nutrient-volume-gate 2; tn-daily 1; tn-daily-excess-split 1;
-    // tn-daily-excess-level 2; power, engine-gas, holder-balance,
+    // tn-daily-excess-level 2; reuse-split 1; reuse-gate 2; nutrient-volume-floor 2; power, engine-gas, holder-balance,
     // export-limit, peak-import 24 each. No outfall limit, no blend limit, no monthly cap.
     [Fact]
     public void ConstraintFamiliesHaveOneRowPerKey()
@@ -77,9 +78,12 @@ public class ModelStructureTests
         Assert.Equal(1, families["tn-daily-excess-split"]);
         Assert.Equal(2, families["tn-daily-excess-level"]);
         Assert.Equal(2, families["nutrient-volume-gate"]);
+        Assert.Equal(1, families["reuse-split"]);
+        Assert.Equal(2, families["reuse-gate"]);
+        Assert.Equal(2, families["nutrient-volume-floor"]);
         Assert.False(families.ContainsKey("blend"));
         Assert.False(families.ContainsKey("outfall-max"));
-        Assert.Equal(1 + 24 * 2 + 48 + 24 * 4 + 24 + 24 * 2 + 24 * 3 + 1 + 24 + 1 + 2 + 1 + 1 + 2 + 24 * 5, solver.NumConstraints());
+        Assert.Equal(1 + 24 * 2 + 48 + 24 * 4 + 24 + 24 * 2 + 24 * 3 + 1 + 24 + 1 + 2 + 1 + 1 + 2 + 1 + 2 + 2 + 24 * 5, solver.NumConstraints());
     }
 
     // The minimum run row of period 5 with L = 3 periods: units[t5] − starts[t3] − starts[t4] − starts[t5] ≥ 0.

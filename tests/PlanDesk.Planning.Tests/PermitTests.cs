@@ -121,6 +121,33 @@ public class PermitTests
         Assert.Equal(880.0, plan.Costs.Total, 880.0 * 1e-3);
     }
 
+    // The LP relaxation must not credit the day's reuse to the cheaper level alone. Same plant and levels, cap 200 kg; a
+    // filter (300 m3/h, no nutrient rejection) fills a 1 000 m3 tank (empty at the start) that serves 200 m3/h.
+    // Hand working: at most 4 800 m3 delivered + 1 000 m3 stored = 5 800 m3 leave the outfall volume, so standard
+    // discharges at least 18 200 × 12 / 1 000 = 218.4 kg (18.4 kg × 200 EUR over the cap) and tight 19 200 × 8 / 1 000
+    // = 153.6 kg: tight at 624 EUR is the optimum. Without the reuse split by level the relaxation ran standard for about
+    // two thirds of the day and sent all the reuse to that share (510.11 EUR, measured); with it, the relaxation is the optimum.
+    [Fact]
+    public void RelaxationCannotCreditTheDaysReuseToTheCheaperLevel()
+    {
+        var network = Build.Network(Build.FlatTariff(100),
+            [Build.Plant(influentM3PerHour: 1000, levels: Levels, permit: new Permit { DailyTotalNitrogenKg = 200 },
+                stages: [Build.Stage("filter", "store", maxFlowM3PerHour: 300)])],
+            tanks: [Build.Tank("store", maxM3: 1000)],
+            pipelines: [Build.ToCustomer("main", "store", "farm")],
+            customers: [Build.HourlyCustomer("farm", 200)]);
+        var planningCase = Build.Case(network);
+        using var lp = Google.OrTools.LinearSolver.Solver.CreateSolver("GLOP");
+        Model.PlanModel.Build(lp, planningCase, Model.IntegerMode.Relaxed);
+
+        Assert.Equal(Google.OrTools.LinearSolver.Solver.ResultStatus.OPTIMAL, lp.Solve());
+        Assert.Equal(624.0, lp.Objective().Value(), 624.0 * 1e-6);
+        var plan = Build.Solve(planningCase);
+        Assert.Equal(SolveStatus.Optimal, plan.Solve.Status);
+        Assert.Equal(new LevelId("tight"), plan.Plants[0].LevelByDay[0]);
+        Assert.Equal(624.0, plan.Costs.Total, 624.0 * 1e-3);
+    }
+
     // Monthly cap 4 600 kg with 4 400 kg already discharged this month leaves 200 kg for the day.
     // Hand working: standard 288 kg > 200 (88 kg × 200 EUR), tight 192 kg ≤ 200 → tight at 624 EUR, no excess.
     [Fact]

@@ -65,6 +65,7 @@ internal sealed partial class PlanModel
     {
         var rejecting = PermitNutrient.RejectingStages(Network, plant).ToList();
         var influent = Case.InfluentM3[plant.Id];
+        var sinks = SinksOf(plant);
         foreach (var day in Horizon.Days)
         {
             var date = DayLabel(day.Index);
@@ -97,6 +98,117 @@ internal sealed partial class PlanModel
                 {
                     gate.Add(TreatedAtLevel[(plant.Id, t, level.Id)], -1);
                 }
+            }
+            if (AllowedLevels[plant.Id].Count > 1)
+            {
+                AddReuseByLevel(plant, day, sinks);
+            }
+        }
+    }
+
+    /// <summary>Where a plant's secondary-fed stages can send water, for a bound on the day's reuse: the tanks reachable
+    /// from their product tanks (through pipelines and tank-fed stages), the customers those tanks serve, and the
+    /// tank-fed stages whose reject leaves them.</summary>
+    private sealed record ReuseSinks(List<Stage> SecondaryStages, List<Tank> Tanks, List<Customer> Customers, List<Stage> TankFedStages);
+
+    private ReuseSinks SinksOf(Plant plant)
+    {
+        var secondary = plant.Stages.Where(s => s.FeedTank is null).ToList();
+        var reached = new HashSet<TankId>();
+        var queue = new Queue<TankId>(secondary.Select(s => s.ProductTank));
+        while (queue.TryDequeue(out var tank))
+        {
+            if (!reached.Add(tank))
+            {
+                continue;
+            }
+            foreach (var pipeline in Network.Pipelines.Where(l => l.From == tank && l.To.Tank is not null))
+            {
+                queue.Enqueue(pipeline.To.Tank!.Value);
+            }
+            foreach (var stage in Network.Stages.Where(s => s.FeedTank == tank))
+            {
+                queue.Enqueue(stage.ProductTank);
+            }
+        }
+        var customers = Network.Pipelines.Where(l => reached.Contains(l.From) && l.To.Customer is not null)
+            .Select(l => l.To.Customer!.Value).Distinct().Select(Network.Customer).ToList();
+        return new ReuseSinks(secondary, Network.Tanks.Where(t => reached.Contains(t.Id)).ToList(), customers,
+            Network.Stages.Where(s => s.FeedTank is { } feed && reached.Contains(feed)).ToList());
+    }
+
+    /// <summary>
+    /// The day's reuse R (Σ (1 − ρ)·feed of the secondary-fed stages: what leaves the nutrient-bearing outfall volume)
+    /// split by level, R = Σm R[m], R[m] ≤ U·y[d,m] (+ tank-limit slack), and W[d,m] ≥ Σt T[t,m] − R[m]: the level that
+    /// runs discharges what it treated less what was reused. U is the most the day can reuse: what the stages can take,
+    /// or what the reachable customers, tanks and tank-fed stages' reject can absorb, whichever is less.
+    /// </summary>
+    private void AddReuseByLevel(Plant plant, PlanDay day, ReuseSinks sinks)
+    {
+        var date = DayLabel(day.Index);
+        var periods = day.PeriodIndices.ToList();
+        double StageMostM3(Stage stage) => periods.Sum(t => stage.UnitMaxFlowM3PerHour * PeriodHours * Case.AvailableUnits[stage.Id][t]);
+        var capacityBound = sinks.SecondaryStages.Sum(s => (1 - s.NutrientRejectionFraction) * StageMostM3(s));
+
+        // Sink bound: product = recovery·feed, so (1 − ρ)·feed ≤ k·product with k the largest (1 − ρ)/recovery.
+        var k = sinks.SecondaryStages.Count == 0 ? 0 : sinks.SecondaryStages.Max(s => (1 - s.NutrientRejectionFraction) / Math.Max(s.RecoveryFraction, 1e-9));
+        var demand = sinks.Customers.Sum(c => c.Demand is DailyDemand
+            ? Case.DailyVolumeM3[c.Id][day.Index]
+            : periods.Sum(t => Case.DemandM3[c.Id][t]));
+        var reject = sinks.TankFedStages.Sum(s => (1 - s.RecoveryFraction) * StageMostM3(s));
+        var slack = new List<(Variable Variable, double Coefficient)>();
+        var storage = 0.0;
+        foreach (var tank in sinks.Tanks)
+        {
+            // In − out over the day = V[end] − V[start] + Σ (1 − keep)·V[t−1], with V ≤ max + above-max slack and
+            // V ≥ min − below-min slack.
+            var lossShare = tank.LossFractionPerDay * PeriodHours / 24.0;
+            storage += tank.MaxM3 - (day.Index == 0 ? tank.InitialM3 : tank.MinM3);
+            slack.Add((AboveMaximum[(tank.Id, periods[^1])], k));
+            if (day.Index > 0)
+            {
+                slack.Add((BelowMinimum[(tank.Id, periods[0] - 1)], k));
+            }
+            foreach (var t in periods)
+            {
+                storage += lossShare * (t == 0 ? tank.InitialM3 : tank.MaxM3);
+                if (t > 0)
+                {
+                    slack.Add((AboveMaximum[(tank.Id, t - 1)], k * lossShare));
+                }
+            }
+        }
+        var sinkBound = k * (demand + reject + storage);
+        var useSinks = sinkBound < capacityBound;
+
+        var split = EqualRow(0, Name("reuse-split", plant.Id, date));
+        foreach (var t in periods)
+        {
+            foreach (var stage in sinks.SecondaryStages)
+            {
+                split.Add(Feed[(stage.Id, t)], -(1 - stage.NutrientRejectionFraction));
+            }
+        }
+        foreach (var level in AllowedLevels[plant.Id])
+        {
+            var reused = NumVar(0, double.PositiveInfinity, Name("reuse-at", plant.Id, date, level.Id));
+            split.Add(reused, 1);
+            var gate = AtMostRow(0, Name("reuse-gate", plant.Id, date, level.Id))
+                .Add(reused, 1)
+                .Add(LevelOn[(plant.Id, day.Index, level.Id)], -(useSinks ? sinkBound : capacityBound));
+            if (useSinks)
+            {
+                foreach (var (variable, coefficient) in slack)
+                {
+                    gate.Add(variable, -coefficient);
+                }
+            }
+            var floor = AtLeastRow(0, Name("nutrient-volume-floor", plant.Id, date, level.Id))
+                .Add(NutrientVolumeAtLevel[(plant.Id, day.Index, level.Id)], 1)
+                .Add(reused, 1);
+            foreach (var t in periods)
+            {
+                floor.Add(TreatedAtLevel[(plant.Id, t, level.Id)], -1);
             }
         }
     }
