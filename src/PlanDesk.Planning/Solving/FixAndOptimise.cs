@@ -56,8 +56,10 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
             for (var index = 0; index < windows.Count; index++)
             {
                 cancellation.ThrowIfCancellationRequested();
+                // A window gets its weight's share of the time left, and at least the least a window needs while that
+                // much is left: with little time, the first windows (the ones that gain most) still run.
                 var weightLeft = windows.Skip(index).Sum(w => w.Weight);
-                var seconds = remainingSeconds() * windows[index].Weight / weightLeft;
+                var seconds = Math.Min(remainingSeconds(), Math.Max(remainingSeconds() * windows[index].Weight / weightLeft, leastWindowSeconds));
                 if (seconds < leastWindowSeconds)
                 {
                     continue;
@@ -88,14 +90,6 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
         return best;
 
         double Objective(SolvedModel? plan) => plan?.Objective ?? startObjective;
-    }
-
-    /// <summary>The share of fix-and-optimise's time its first window gets: it is worth starting only when that
-    /// window fits.</summary>
-    public double FirstWindowShare()
-    {
-        var windows = Windows();
-        return windows[0].Weight / windows.Sum(w => w.Weight);
     }
 
     // Which decisions each window frees: every day's treatment levels, every unit and pump, then each local day's decisions.

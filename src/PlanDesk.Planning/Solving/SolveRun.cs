@@ -30,8 +30,8 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     // LP again (with presolve and cuts), and HiGHS does not stop inside it on its time limit (overruns of 14-54 s measured).
     private const double RootLpFactor = 2.0;
     // Time kept back for the explanation LP (GLOP, fixed decisions), as a multiple of what the baseline's LP (HiGHS) took, and at
-    // least (measured at XL: explanation 9 s, the baseline's LP 19-54 s under load).
-    private const double ExplainLpFactor = 2.0;
+    // least (measured: at XL explanation 9 s, the baseline's LP 19-54 s under load; at M 0.5 s against 1.05 s).
+    private const double ExplainLpFactor = 1.0;
     private const double MinimumExplainSeconds = 1.0;
     // At size M the explanation took 0.3 s (the LP with the baseline's decisions 0.3 s); 3 s kept back left the
     // search a third less time in a 10 s solve.
@@ -101,7 +101,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
 
     // A window re-solves the whole horizon's LP with some decisions free: its root LP takes about what the LP with the
     // baseline's decisions took, and no window is started without that time (twice over). Fix-and-optimise starts when
-    // its first window (every day's treatment levels, the one that gains most) fits in its share of the time.
+    // one window (the first: every day's treatment levels, the one that gains most) fits in its time.
     private bool FixAndOptimiseFits()
     {
         if (relaxationSeconds is null || baselineLpSeconds is not { } lpSeconds)
@@ -109,14 +109,22 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
             notes.Add("fix-and-optimise over days was not started: the LPs before it did not finish in time");
             return false;
         }
-        var firstWindowSeconds = SearchSecondsLeft() * FixAndOptimiseShare * new FixAndOptimise(planningCase, options, []).FirstWindowShare();
-        if (firstWindowSeconds < WindowLeastSeconds(lpSeconds))
+        if (FixAndOptimiseSeconds() < WindowLeastSeconds(lpSeconds))
         {
             notes.Add($"fix-and-optimise over days was not started: a window needs about {WindowLeastSeconds(lpSeconds):0.#} s " +
-                      $"and its first would have had {Math.Max(0, firstWindowSeconds):0.#} s");
+                      $"and {Math.Max(0, FixAndOptimiseSeconds()):0.#} s were left for it");
             return false;
         }
         return true;
+    }
+
+    // Fix-and-optimise's share of the search time; all of it when the whole MILP could not start in the rest anyway
+    // (its root LP alone needs about twice the relaxation's time).
+    private double FixAndOptimiseSeconds()
+    {
+        var search = SearchSecondsLeft();
+        var milpCouldFollow = relaxationSeconds is { } lpSeconds && search * (1 - FixAndOptimiseShare) >= RootLpFactor * lpSeconds;
+        return search * (milpCouldFollow ? FixAndOptimiseShare : 1);
     }
 
     private static double WindowLeastSeconds(double fixedLpSeconds) => Math.Max(RootLpFactor * fixedLpSeconds, FixAndOptimise.MinimumWindowSeconds);
@@ -146,7 +154,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         var leastWindowSeconds = WindowLeastSeconds(baselineLpSeconds ?? 0);
         // The whole MILP runs afterwards only from M-sized models down (see WholeMilpFits); the windows keep a share
         // of the search time for it.
-        var deadline = clock.Elapsed.TotalSeconds + SearchSecondsLeft() * FixAndOptimiseShare;
+        var deadline = clock.Elapsed.TotalSeconds + FixAndOptimiseSeconds();
         double WindowSecondsLeft() => Math.Min(SearchSecondsLeft(), deadline - clock.Elapsed.TotalSeconds);
         var task = Task.Run(() => new FixAndOptimise(planningCase, options, dayByDayNotes)
             .Improve(start.Objective, values, WindowSecondsLeft, cancellation, leastWindowSeconds), CancellationToken.None);
