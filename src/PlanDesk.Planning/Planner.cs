@@ -12,7 +12,7 @@ public sealed record SolveOptions
     public double TimeLimitSeconds { get; init; } = 60;
     /// <summary>Relative gap at which the search stops, percent.</summary>
     public double GapPercent { get; init; } = 0.5;
-    /// <summary>Threads for HiGHS (SCIP always runs one). HiGHS fixes its thread count at the first solve of a process.</summary>
+    /// <summary>Cores to use: independent groups of plants are solved this many side by side (every solver runs on one thread).</summary>
     public int Threads { get; init; } = 2;
     /// <summary>Compute marginal water costs and binding limits after the MILP (a fixed-integer LP re-solve).</summary>
     public bool Explain { get; init; } = true;

@@ -27,9 +27,6 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
     public Plan Execute()
     {
         var workerCount = Math.Clamp(options.Threads, 1, groups.Count);
-        // HiGHS's thread count is one per process and concurrent instances must share it: one thread per group when
-        // groups run side by side, so the workers together use the threads asked for.
-        var groupOptions = workerCount > 1 ? options with { Threads = 1 } : options;
         // A group that fails stops the others: the region gets no plan without it.
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
         // Every group has a plan at once, its rule-based baseline (seconds even at 50 plants), so the region has one
@@ -40,7 +37,7 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
             states[i].StartFrom(baselines[i]);
         }
         Report();
-        var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, groupOptions, stop), CancellationToken.None)).ToArray();
+        var workers = Assign(workerCount).Select(queue => Task.Run(() => RunWorker(queue, stop), CancellationToken.None)).ToArray();
         var all = Task.WhenAll(workers);
         while (!((IAsyncResult)all).AsyncWaitHandle.WaitOne(ProgressInterval))
         {
@@ -78,11 +75,11 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         return queues;
     }
 
-    private void RunWorker(IReadOnlyList<int> queue, SolveOptions groupOptions, CancellationTokenSource stop)
+    private void RunWorker(IReadOnlyList<int> queue, CancellationTokenSource stop)
     {
         try
         {
-            RunGroups(queue, groupOptions, stop.Token);
+            RunGroups(queue, stop.Token);
         }
         catch (Exception failure) when (failure is not OperationCanceledException)
         {
@@ -91,7 +88,7 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
         }
     }
 
-    private void RunGroups(IReadOnlyList<int> queue, SolveOptions groupOptions, CancellationToken token)
+    private void RunGroups(IReadOnlyList<int> queue, CancellationToken token)
     {
         for (var position = 0; position < queue.Count; position++)
         {
@@ -101,7 +98,7 @@ internal sealed class GroupedSolve(PlanningCase planningCase, IReadOnlyList<Plan
             var remainingSeconds = Math.Max(1, options.TimeLimitSeconds - clock.Elapsed.TotalSeconds);
             var budgetSeconds = remainingSeconds * sizes[index] / Math.Max(1, left);
             var startedSeconds = clock.Elapsed.TotalSeconds;
-            var plan = new SolveRun(groupCases[index], groupOptions with { TimeLimitSeconds = budgetSeconds }, states[index], token,
+            var plan = new SolveRun(groupCases[index], options with { TimeLimitSeconds = budgetSeconds }, states[index], token,
                 states[index].Baseline).Execute();
             var timing = $"solved from {startedSeconds:0.#} s to {clock.Elapsed.TotalSeconds:0.#} s of the region's solve, with a share of {budgetSeconds:0.#} s";
             states[index].Finish(plan with { Solve = plan.Solve with { Notes = [.. plan.Solve.Notes, timing] } });
