@@ -24,9 +24,11 @@ internal sealed class FixAndOptimise(PlanningCase planningCase, SolveOptions opt
     // A window stops at this gap to its own bound: it looks for the best plan of its neighbourhood, not a proof.
     private const double WindowGapPercent = 0.01;
     // Shares of the time, as multiples of a day window's: the levels window gained most where measured (size M seed 1:
-    // 34,670 to 33,797 EUR in 6 s), the units window little (33,785 in a further 17 s).
-    private const double LevelsWindowWeight = 5;
-    private const double UnitsWindowWeight = 3;
+    // 34,670 to 33,797 EUR in 6 s; L seed 1's six-plant group: 45,027 to 43,565 EUR, proven in 12.8 s, while with 5 of
+    // 15 shares it had 11.5 s and found nothing), the units window little (33,785 in a further 17 s; 43,555 in 20 s).
+    // A window that ends early passes its time on. Weights 5 and 3 gave L seed 1 4.7 % in 60 s, 12 and 2 gave 2.35 %.
+    private const double LevelsWindowWeight = 12;
+    private const double UnitsWindowWeight = 2;
 
     private sealed record Window(string Name, double Weight, Func<int, string, IntegerMode> Rule);
 
