@@ -33,8 +33,7 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
     // least (measured: at XL explanation 9 s, the baseline's LP 19-54 s under load; at M 0.5 s against 1.05 s).
     private const double ExplainLpFactor = 1.0;
     private const double MinimumExplainSeconds = 1.0;
-    // At size M the explanation took 0.3 s (the LP with the baseline's decisions 0.3 s); 3 s kept back left the
-    // search a third less time in a 10 s solve.
+    // At size M the explanation took 0.3-0.5 s; 3 s kept back left the search of a 10 s solve a third less time.
     private const double LeastExplainReserveSeconds = 1.5;
     private static readonly TimeSpan ProgressInterval = TimeSpan.FromMilliseconds(500);
 
