@@ -151,8 +151,8 @@ internal sealed partial class SolveRun(PlanningCase planningCase, SolveOptions o
         var dayByDayNotes = new List<string>();
         var values = new Dictionary<string, double>(start.IntegerValues);
         var leastWindowSeconds = WindowLeastSeconds(baselineLpSeconds ?? 0);
-        // The whole MILP runs afterwards only from M-sized models down (see WholeMilpFits); the windows keep a share
-        // of the search time for it.
+        // The windows keep a share of the search time for the whole MILP when it could start in it (see
+        // FixAndOptimiseSeconds and WholeMilpFits).
         var deadline = clock.Elapsed.TotalSeconds + FixAndOptimiseSeconds();
         double WindowSecondsLeft() => Math.Min(SearchSecondsLeft(), deadline - clock.Elapsed.TotalSeconds);
         var task = Task.Run(() => new FixAndOptimise(planningCase, options, dayByDayNotes)
